@@ -1,0 +1,85 @@
+export type Severity = "invalid" | "suspect";
+
+export interface FlagDefinition {
+  readonly code: FlagCode;
+  /** Bit of this flag in a sample's flag mask. */
+  readonly bit: number;
+  /** Severity unless a request option changes it (see `vp_vs_below_sqrt2`). */
+  readonly severity: Severity;
+  /** What the flag means and what to check, in the words a log analyst uses. */
+  readonly meaning: string;
+}
+
+export const FLAG_CODES = [
+  "missing",
+  "not_finite",
+  "non_positive",
+  "vs_not_below_vp",
+  "negative_bulk_modulus",
+  "vp_vs_below_sqrt2",
+  "density_out_of_range",
+  "vp_out_of_range",
+  "vs_out_of_range",
+  "vp_vs_high",
+] as const;
+export type FlagCode = (typeof FLAG_CODES)[number];
+
+const MEANINGS: Record<FlagCode, [Severity, string]> = {
+  missing: ["invalid", "An input is absent, null, NaN or equal to the null value; nothing can be computed for this sample."],
+  not_finite: ["invalid", "An input is infinite (for example a number too large for a 64-bit float, such as 1e309)."],
+  non_positive: ["invalid", "A velocity, slowness or density is zero or negative, which no rock or fluid has."],
+  vs_not_below_vp: [
+    "invalid",
+    "Vs is not below Vp. A shear wave is always slower than a compressional wave in a solid: the shear pick is wrong or the curves are swapped.",
+  ],
+  negative_bulk_modulus: [
+    "invalid",
+    "Vp/Vs <= sqrt(4/3), so the bulk modulus K = rho*(Vp^2 - 4/3*Vs^2) <= 0: impossible for a stable solid; the shear arrival is almost certainly mispicked.",
+  ],
+  vp_vs_below_sqrt2: [
+    "invalid",
+    "Vp/Vs < sqrt(2), so Poisson's ratio is negative: implausible for rock and almost always a mispicked shear arrival. Invalid unless keep_negative_poisson is true, then suspect.",
+  ],
+  density_out_of_range: [
+    "suspect",
+    "Bulk density outside the range of common rocks and borehole fluids: check pad contact, washouts, barite mud or heavy minerals.",
+  ],
+  vp_out_of_range: [
+    "suspect",
+    "Vp outside the range of common rocks and borehole fluids: check for cycle skipping, noise or a wrong unit.",
+  ],
+  vs_out_of_range: [
+    "suspect",
+    "Vs outside the range of common rocks: check the shear pick and the unit.",
+  ],
+  vp_vs_high: [
+    "suspect",
+    "Vp/Vs above the configured maximum: unconsolidated sediment, or a shear arrival picked too late (Poisson's ratio near 0.5).",
+  ],
+};
+
+export const FLAGS: readonly FlagDefinition[] = FLAG_CODES.map((code, bit) => ({
+  code,
+  bit,
+  severity: MEANINGS[code][0],
+  meaning: MEANINGS[code][1],
+}));
+
+export const flagBit = (code: FlagCode): number => 1 << FLAG_CODES.indexOf(code);
+
+/** Flag codes whose bits are set in `mask`, in catalogue order. */
+export const flagCodesOf = (mask: number): FlagCode[] =>
+  FLAG_CODES.filter((_, bit) => (mask & (1 << bit)) !== 0);
+
+/** Bits that make a sample invalid (moduli null) under the given options. */
+export const invalidatingMask = (keepNegativePoisson: boolean): number =>
+  FLAGS.reduce(
+    (mask, flag) =>
+      flag.severity === "invalid" && !(keepNegativePoisson && flag.code === "vp_vs_below_sqrt2")
+        ? mask | (1 << flag.bit)
+        : mask,
+    0,
+  );
+
+export const severityOf = (code: FlagCode, invalidMask: number): Severity =>
+  (invalidMask & flagBit(code)) !== 0 ? "invalid" : "suspect";

@@ -1,0 +1,98 @@
+import { randomUUID } from "node:crypto";
+import swagger from "@fastify/swagger";
+import swaggerUi from "@fastify/swagger-ui";
+import Fastify, { LogController, type FastifyInstance, type FastifyServerOptions } from "fastify";
+import {
+  jsonSchemaTransform,
+  validatorCompiler,
+  type ZodTypeProvider,
+} from "fastify-type-provider-zod";
+import { DEFAULT_CONFIG, type ServiceConfig } from "./config.js";
+import { transformObject } from "./openapi-components.js";
+import { installProblemHandlers } from "./plugins/problem-handlers.js";
+import elasticRoutes from "./routes/elastic.js";
+import healthRoutes from "./routes/health.js";
+import referenceRoutes from "./routes/reference.js";
+import { SERVICE_VERSION } from "./version.js";
+
+declare module "fastify" {
+  interface FastifyInstance {
+    /** Set when a shutdown starts; /readyz then answers 503. */
+    shuttingDown: boolean;
+  }
+}
+
+export interface AppOptions {
+  config?: Partial<ServiceConfig>;
+  /** pino options, `false` for silence (tests), `true` for defaults. */
+  logger?: FastifyServerOptions["logger"];
+}
+
+const REQUEST_ID = /^[A-Za-z0-9._:-]{1,128}$/;
+
+const SAFETY_NOTE =
+  "Log-derived moduli are estimates. Dynamic values and any static or strength values derived from them by empirical correlations " +
+  "must be calibrated against core tests for the field at hand before they are used in fracture design, wellbore stability or " +
+  "sanding studies; engineering decisions rest with licensed professionals under local regulations.";
+
+/**
+ * The whole application, ready to `inject` or to `listen` — it never listens by itself (see main.ts).
+ * Responses are written with JSON.stringify: the zod response schemas document the contract and the
+ * tests check answers against them, but a million-sample answer is not re-validated on every request.
+ */
+export async function buildApp(options: AppOptions = {}): Promise<FastifyInstance> {
+  const config: ServiceConfig = { ...DEFAULT_CONFIG, ...options.config };
+  const app = Fastify({
+    logger: options.logger ?? { level: config.logLevel, redact: ["req.headers.authorization"] },
+    bodyLimit: config.jsonBodyLimitBytes,
+    connectionTimeout: config.connectionTimeoutMs,
+    keepAliveTimeout: config.keepAliveTimeoutMs,
+    requestTimeout: config.requestTimeoutMs,
+    logController: new LogController({ requestIdLogLabel: "request_id" }),
+    genReqId: (request) => {
+      const given = request.headers["x-request-id"];
+      return typeof given === "string" && REQUEST_ID.test(given) ? given : randomUUID();
+    },
+    onProtoPoisoning: "error",
+    onConstructorPoisoning: "error",
+  }).withTypeProvider<ZodTypeProvider>();
+  app.server.headersTimeout = config.headersTimeoutMs;
+  app.decorate("shuttingDown", false);
+  app.setValidatorCompiler(validatorCompiler);
+  app.setSerializerCompiler(() => (data) => JSON.stringify(data));
+  app.addHook("onSend", async (request, reply) => {
+    reply.header("x-request-id", request.id);
+  });
+
+  await app.register(swagger, {
+    openapi: {
+      openapi: "3.1.0",
+      info: {
+        title: "elastilog",
+        version: SERVICE_VERSION,
+        description: [
+          "Turns well-log sonic (Vp/Vs or DTC/DTS) and bulk density data into dynamic elastic rock properties",
+          "(Young's modulus E, Poisson's ratio nu, shear modulus G, Lamé's lambda, bulk modulus K, P-wave modulus M, Vp/Vs,",
+          "impedances, lambda*rho and mu*rho), and flags every sample whose logs are physically impossible or implausible.",
+          "\n\n**Caution.** " + SAFETY_NOTE,
+        ].join(" "),
+        license: { name: "Proprietary", identifier: "LicenseRef-Proprietary" },
+      },
+      servers: [{ url: "http://127.0.0.1:8080", description: "Local service started with npm start" }],
+      tags: [
+        { name: "elastic", description: "Dynamic elastic properties and QC flags." },
+        { name: "operations", description: "Probes for orchestrators and load balancers." },
+        { name: "reference", description: "The contract and the problem types." },
+      ],
+    },
+    transform: jsonSchemaTransform,
+    transformObject,
+  });
+  await app.register(swaggerUi, { routePrefix: "/docs", uiConfig: { docExpansion: "list", deepLinking: true } });
+
+  installProblemHandlers(app, { bodyLimitBytes: config.jsonBodyLimitBytes });
+  await app.register(healthRoutes);
+  await app.register(referenceRoutes);
+  await app.register(elasticRoutes, { maxSamples: config.maxSamples });
+  return app;
+}

@@ -1,0 +1,141 @@
+import {
+  FLAGS,
+  flagCodesOf,
+  severityOf,
+  summariseFlags,
+  type ElasticLog,
+  type ElasticLogRequest,
+  type FlagCode,
+  type Severity,
+  type DensityUnit,
+  type DepthUnit,
+  type ImpedanceUnit,
+  type ModulusUnit,
+  type SlownessUnit,
+  type VelocityUnit,
+} from "../core/index.js";
+import { fromPlausibilityLimits } from "./schemas/limits.js";
+
+const MEANING = new Map(FLAGS.map((flag) => [flag.code, flag.meaning]));
+
+/** JSON has no NaN: a NaN becomes null (JSON.stringify does the same for array elements). */
+const nullable = (value: number): number | null => (Number.isNaN(value) ? null : value);
+
+/** A plain array of a column; JSON.stringify writes its NaNs as null without a second pass. */
+const plain = (column: Float64Array): number[] => Array.from(column);
+
+const format = (value: number): string => String(Number(value.toPrecision(6)));
+
+/** Names the values behind a flag of one sample, so a curl user sees why without looking anything up. */
+const specifics = (code: FlagCode, log: ElasticLog, request: ElasticLogRequest): string => {
+  const unit = request.velocityUnit;
+  const limits = request.limits;
+  const vp = log.vp[0];
+  const vs = log.vs[0];
+  const ratio = `Vp/Vs = ${format(vp / vs)}`;
+  switch (code) {
+    case "vs_not_below_vp":
+      return `Here Vs = ${format(vs)} ${unit} and Vp = ${format(vp)} ${unit}.`;
+    case "negative_bulk_modulus":
+    case "vp_vs_below_sqrt2":
+    case "vp_vs_high":
+      return `Here ${ratio}${code === "vp_vs_high" ? `, above ${limits.vpVsMax}` : ""}.`;
+    case "vp_out_of_range":
+      return `Here Vp = ${format(vp)} ${unit}; the range is ${limits.vpMinMetresPerSecond}–${limits.vpMaxMetresPerSecond} m/s.`;
+    case "vs_out_of_range":
+      return `Here Vs = ${format(vs)} ${unit}; the range is ${limits.vsMinMetresPerSecond}–${limits.vsMaxMetresPerSecond} m/s.`;
+    case "density_out_of_range":
+      return `The range is ${limits.rhoMinGramsPerCubicCentimetre}–${limits.rhoMaxGramsPerCubicCentimetre} g/cm3.`;
+    default:
+      return "";
+  }
+};
+
+/** Units of inputs and outputs as the request chose them (or their defaults). */
+export interface UnitsChosen {
+  velocity: VelocityUnit;
+  slowness: SlownessUnit;
+  density: DensityUnit;
+  modulus: ModulusUnit;
+  impedance: ImpedanceUnit;
+}
+
+const unitsOf = <U extends UnitsChosen>(units: U) => ({ ...units, lambda_rho: `${units.modulus}*g/cm3` });
+
+/** The answer of `GET /v1/elastic`: one sample's properties, flags with explanations, units and limits. */
+export const pointAnswer = (log: ElasticLog, request: ElasticLogRequest, units: UnitsChosen) => {
+  const mask = log.flags[0];
+  return {
+    E: nullable(log.youngsModulus[0]),
+    nu: nullable(log.poissonsRatio[0]),
+    G: nullable(log.shearModulus[0]),
+    K: nullable(log.bulkModulus[0]),
+    lambda: nullable(log.lameLambda[0]),
+    M: nullable(log.pWaveModulus[0]),
+    vp_vs: nullable(log.vpVsRatio[0]),
+    p_impedance: nullable(log.pImpedance[0]),
+    s_impedance: nullable(log.sImpedance[0]),
+    lambda_rho: nullable(log.lambdaRho[0]),
+    mu_rho: nullable(log.muRho[0]),
+    vp: nullable(log.vp[0]),
+    vs: nullable(log.vs[0]),
+    valid: (mask & log.invalidMask) === 0,
+    flags: flagCodesOf(mask).map((code) => ({
+      code,
+      severity: severityOf(code, log.invalidMask),
+      message: `${MEANING.get(code)} ${specifics(code, log, request)}`.trim(),
+    })),
+    units: unitsOf(units),
+    limits: fromPlausibilityLimits(request.limits),
+  };
+};
+
+/** Every flag of every sample as `{index, code, severity}`, in row order. */
+const sampleFlags = (log: ElasticLog) => {
+  const list: { index: number; code: FlagCode; severity: Severity }[] = [];
+  for (let i = 0; i < log.flags.length; i++) {
+    if (log.flags[i] === 0) continue;
+    for (const code of flagCodesOf(log.flags[i])) list.push({ index: i, code, severity: severityOf(code, log.invalidMask) });
+  }
+  return list;
+};
+
+/** The answer of `POST /v1/elastic`: columns of the input's length, flags, legend, summary, units and limits. */
+export const columnsAnswer = (
+  log: ElasticLog,
+  request: ElasticLogRequest,
+  units: UnitsChosen & { depth: DepthUnit },
+  echo: { depth?: Float64Array; top?: Float64Array; base?: Float64Array },
+) => {
+  const summary = summariseFlags(log.flags, log.invalidMask);
+  const legend = Object.fromEntries(
+    (Object.keys(summary.flags) as FlagCode[]).map((code) => [
+      code,
+      { severity: severityOf(code, log.invalidMask), meaning: MEANING.get(code) as string },
+    ]),
+  );
+  return {
+    count: log.length,
+    ...(echo.depth && { depth: plain(echo.depth) }),
+    ...(echo.top && { top: plain(echo.top) }),
+    ...(echo.base && { base: plain(echo.base) }),
+    E: plain(log.youngsModulus),
+    nu: plain(log.poissonsRatio),
+    G: plain(log.shearModulus),
+    K: plain(log.bulkModulus),
+    lambda: plain(log.lameLambda),
+    M: plain(log.pWaveModulus),
+    vp_vs: plain(log.vpVsRatio),
+    p_impedance: plain(log.pImpedance),
+    s_impedance: plain(log.sImpedance),
+    lambda_rho: plain(log.lambdaRho),
+    mu_rho: plain(log.muRho),
+    vp: plain(log.vp),
+    vs: plain(log.vs),
+    flags: sampleFlags(log),
+    flag_legend: legend,
+    summary,
+    units: unitsOf(units),
+    limits: fromPlausibilityLimits(request.limits),
+  };
+};

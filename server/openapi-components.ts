@@ -1,0 +1,38 @@
+import { jsonSchemaTransformObject } from "fastify-type-provider-zod";
+
+type TransformObject = typeof jsonSchemaTransformObject;
+type Document = ReturnType<TransformObject>;
+
+const REF_PREFIX = "#/components/schemas/";
+
+const collectRefs = (value: unknown, found: Set<string>): void => {
+  if (Array.isArray(value)) value.forEach((item) => collectRefs(item, found));
+  else if (value !== null && typeof value === "object") {
+    for (const [key, child] of Object.entries(value)) {
+      if (key === "$ref" && typeof child === "string" && child.startsWith(REF_PREFIX)) found.add(child.slice(REF_PREFIX.length));
+      else collectRefs(child, found);
+    }
+  }
+};
+
+/**
+ * The zod type provider writes every registered schema twice (an input and an output variant).
+ * Keep only the component schemas the paths actually reference, directly or through other components,
+ * so the published document lists each schema once.
+ */
+export const transformObject: TransformObject = (input) => {
+  const document = jsonSchemaTransformObject(input) as Document & { components?: { schemas?: Record<string, unknown> } };
+  const schemas = document.components?.schemas;
+  if (schemas === undefined) return document;
+  const used = new Set<string>();
+  collectRefs((document as { paths?: unknown }).paths, used);
+  for (let size = -1; size !== used.size; ) {
+    size = used.size;
+    for (const name of [...used]) collectRefs(schemas[name], used);
+  }
+  document.components = {
+    ...document.components,
+    schemas: Object.fromEntries(Object.entries(schemas).filter(([name]) => used.has(name))),
+  };
+  return document;
+};

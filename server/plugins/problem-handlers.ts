@@ -1,0 +1,79 @@
+import type { FastifyError, FastifyInstance, FastifyReply, FastifyRequest } from "fastify";
+import { hasZodFastifySchemaValidationErrors } from "fastify-type-provider-zod";
+import { isInputIssues } from "../../core/index.js";
+import {
+  PROBLEM_MEDIA_TYPE,
+  isProblemError,
+  problemDocument,
+  type ProblemFieldError,
+  type ProblemSlug,
+} from "../problems.js";
+
+const send = (
+  reply: FastifyReply,
+  slug: ProblemSlug,
+  detail: string,
+  errors?: ProblemFieldError[],
+  headers: Record<string, string> = {},
+) => {
+  const body = problemDocument(slug, detail, { requestId: reply.request.id, errors });
+  return reply.code(body.status).headers(headers).type(PROBLEM_MEDIA_TYPE).send(body);
+};
+
+const CONTEXT_NAMES: Record<string, string> = { querystring: "query", body: "body", params: "path", headers: "header" };
+
+/** Zod issues, as Fastify hands them over, in the request's own field names. */
+const validationErrors = (error: FastifyError): ProblemFieldError[] => {
+  const context = CONTEXT_NAMES[error.validationContext ?? "body"] ?? "body";
+  return (error.validation ?? []).flatMap((issue) => {
+    const path = [context, ...issue.instancePath.split("/").filter(Boolean)];
+    const keys = (issue.params as { keys?: string[] }).keys;
+    return keys === undefined
+      ? [{ field: path.join("."), message: issue.message ?? "is not valid" }]
+      : keys.map((key) => ({ field: [...path, key].join("."), message: "unknown field; see /openapi.yaml for the accepted fields (names are lower case)" }));
+  });
+};
+
+/** Fastify's own error codes that are a client's fault, and how to word them. */
+const FASTIFY_CODES: Record<string, ProblemSlug> = {
+  FST_ERR_CTP_BODY_TOO_LARGE: "body-too-large",
+  FST_ERR_CTP_INVALID_MEDIA_TYPE: "unsupported-media-type",
+  FST_ERR_CTP_INVALID_CONTENT_LENGTH: "malformed-body",
+};
+
+/**
+ * One error handler and one not-found handler for the whole app: every failure becomes an RFC 9457
+ * problem document, and nothing internal (stack, file paths) is ever sent.
+ */
+export const installProblemHandlers = (app: FastifyInstance, limits: { bodyLimitBytes: number }): void => {
+  app.setErrorHandler((error: FastifyError, request: FastifyRequest, reply: FastifyReply) => {
+    if (isProblemError(error)) return send(reply, error.slug, error.detail, error.errors, error.headers);
+    if (hasZodFastifySchemaValidationErrors(error)) {
+      const errors = validationErrors(error);
+      return send(reply, "invalid-request", `The request has ${errors.length} invalid field${errors.length === 1 ? "" : "s"}: ${errors.map((e) => `${e.field} (${e.message})`).join("; ")}.`, errors);
+    }
+    if (isInputIssues(error)) {
+      const errors = error.issues.map((issue) => ({ ...issue, field: `body.${issue.field}` }));
+      return send(reply, "invalid-request", `The request's data cannot be used: ${error.message}.`, errors);
+    }
+    const slug = error.code === undefined ? undefined : FASTIFY_CODES[error.code];
+    if (slug === "unsupported-media-type") {
+      const given = request.headers["content-type"] ?? "none";
+      return send(reply, slug, `${request.method} ${request.routeOptions.url ?? request.url} does not accept the content type "${given}"; send application/json (see /openapi.yaml for what each endpoint accepts).`);
+    }
+    if (slug === "body-too-large") {
+      return send(reply, slug, `The body is larger than this endpoint's limit of ${limits.bodyLimitBytes} bytes. Send fewer samples per request, or ask the operator to raise JSON_BODY_LIMIT_BYTES.`);
+    }
+    if (slug !== undefined) return send(reply, slug, error.message);
+    if (error.statusCode !== undefined && error.statusCode >= 400 && error.statusCode < 500) {
+      request.log.info({ err: error }, "client error without a dedicated problem type");
+      return send(reply, "invalid-request", error.message);
+    }
+    request.log.error({ err: error }, "unhandled error");
+    return send(reply, "internal-error", `The service failed to answer this request; quote request_id ${request.id} when reporting it.`);
+  });
+
+  app.setNotFoundHandler((request, reply) =>
+    send(reply, "not-found", `There is no ${request.method} ${request.url.split("?")[0]}. The endpoints are listed at /docs and /openapi.yaml.`),
+  );
+};

@@ -1,0 +1,78 @@
+/**
+ * Every error answer is an RFC 9457 problem document (application/problem+json).
+ * Each kind of problem has a stable `type` URI: a path on this service, where
+ * `GET /problems/{slug}` explains it (RFC 9457 §3.1.1: a relative URI resolves against the request URI).
+ */
+export const PROBLEM_MEDIA_TYPE = "application/problem+json";
+
+export const PROBLEM_KINDS = {
+  "invalid-request": { status: 400, title: "The request is not valid", fix: "Correct the fields listed in `errors` and send the request again." },
+  "malformed-body": { status: 400, title: "The body could not be parsed", fix: "Send well-formed JSON (RFC 8259) with Content-Type application/json." },
+  "forbidden-key": {
+    status: 400,
+    title: "The body contains a forbidden key",
+    fix: "Remove keys named __proto__ or constructor from the JSON body; they are refused to protect the service.",
+  },
+  "not-found": { status: 404, title: "No such resource", fix: "Check the path against /openapi.yaml or /docs." },
+  "method-not-allowed": { status: 405, title: "Method not allowed on this path", fix: "Use one of the methods listed in the Allow header." },
+  "body-too-large": { status: 413, title: "The body is too large", fix: "Send fewer samples per request, or raise the service's body limit (see README, Limits)." },
+  "too-many-samples": { status: 413, title: "Too many samples in one request", fix: "Split the well into requests of at most the stated number of samples." },
+  "unsupported-media-type": { status: 415, title: "Unsupported content type", fix: "Send the body with one of the content types this endpoint accepts (see /openapi.yaml)." },
+  "internal-error": { status: 500, title: "Internal error", fix: "This is a fault of the service, not of your request: report it with the request_id." },
+} as const;
+
+export type ProblemSlug = keyof typeof PROBLEM_KINDS;
+
+export const problemTypeUri = (slug: ProblemSlug): string => `/problems/${slug}`;
+
+export interface ProblemFieldError {
+  /** Dotted path of the field in the request (`body.vp`, `query.modulus_unit`). */
+  field: string;
+  /** Row of a column, when one element is wrong. */
+  index?: number;
+  message: string;
+}
+
+export interface ProblemDocument {
+  type: string;
+  title: string;
+  status: number;
+  detail: string;
+  request_id?: string;
+  errors?: ProblemFieldError[];
+}
+
+/** An error a route throws on purpose; the error handler turns it into a problem document. */
+export class ProblemError extends Error {
+  constructor(
+    readonly slug: ProblemSlug,
+    readonly detail: string,
+    readonly errors?: ProblemFieldError[],
+    readonly headers: Record<string, string> = {},
+  ) {
+    super(detail);
+    this.name = "ProblemError";
+  }
+
+  get statusCode(): number {
+    return PROBLEM_KINDS[this.slug].status;
+  }
+}
+
+export const isProblemError = (error: unknown): error is ProblemError => error instanceof ProblemError;
+
+export const problemDocument = (
+  slug: ProblemSlug,
+  detail: string,
+  extra: { requestId?: string; errors?: ProblemFieldError[] } = {},
+): ProblemDocument => {
+  const kind = PROBLEM_KINDS[slug];
+  return {
+    type: problemTypeUri(slug),
+    title: kind.title,
+    status: kind.status,
+    detail,
+    ...(extra.requestId === undefined ? {} : { request_id: extra.requestId }),
+    ...(extra.errors === undefined ? {} : { errors: extra.errors }),
+  };
+};

@@ -1,0 +1,81 @@
+import type { FastifyInstance } from "fastify";
+import type { ZodTypeProvider } from "fastify-type-provider-zod";
+import { computeElasticLog } from "../../core/index.js";
+import { columnsAnswer, pointAnswer } from "../elastic-answer.js";
+import { columnsRequest, pointRequest } from "../elastic-request.js";
+import { installJsonBodyParser } from "../plugins/json-body.js";
+import { ProblemError } from "../problems.js";
+import {
+  elasticColumnsBody,
+  elasticColumnsResponse,
+  elasticPointQuery,
+  elasticPointResponse,
+} from "../schemas/elastic.js";
+import { commonProblemResponses } from "../schemas/problem.js";
+
+export interface ElasticRouteOptions {
+  maxSamples: number;
+}
+
+const DESCRIPTION = [
+  "Dynamic elastic properties from sonic velocities or slownesses and bulk density, with exact isotropic relations",
+  "(G = rho*Vs^2, M = rho*Vp^2, lambda = M - 2G, K = M - 4G/3, nu = (Vp^2 - 2Vs^2)/(2(Vp^2 - Vs^2)), E = 2G(1 + nu)).",
+  "Every sample is screened: impossible inputs are flagged invalid and get null moduli; implausible ones are flagged suspect.",
+  "These are dynamic (log-derived) values: estimates, to be calibrated against core tests before engineering use.",
+].join(" ");
+
+export default async function elasticRoutes(instance: FastifyInstance, options: ElasticRouteOptions): Promise<void> {
+  const app = instance.withTypeProvider<ZodTypeProvider>();
+  // Content-type parsers are encapsulated per plugin: here only JSON is accepted, anything else is a 415.
+  app.removeAllContentTypeParsers();
+  installJsonBodyParser(app);
+
+  app.get(
+    "/v1/elastic",
+    {
+      schema: {
+        tags: ["elastic"],
+        summary: "Elastic properties of one sample (made for a one-line curl during log QC).",
+        description: DESCRIPTION,
+        querystring: elasticPointQuery,
+        response: { 200: elasticPointResponse, ...commonProblemResponses },
+      },
+    },
+    async (request) => {
+      const query = request.query;
+      const core = pointRequest(query);
+      return pointAnswer(computeElasticLog(core), core, {
+        velocity: query.velocity_unit,
+        slowness: query.slowness_unit,
+        density: query.density_unit,
+        modulus: query.modulus_unit,
+        impedance: query.impedance_unit,
+      });
+    },
+  );
+
+  app.post(
+    "/v1/elastic",
+    {
+      schema: {
+        tags: ["elastic"],
+        summary: "Elastic properties of many samples or intervals, as columns.",
+        description: `${DESCRIPTION} Columns of equal length; the answer has one value per input row, in input order, nothing dropped.`,
+        body: elasticColumnsBody,
+        response: { 200: elasticColumnsResponse, ...commonProblemResponses },
+      },
+    },
+    async (request) => {
+      const body = request.body;
+      const samples = [body.vp, body.dtc, body.rho].find((c) => c !== undefined)?.length ?? 0;
+      if (samples > options.maxSamples) {
+        throw new ProblemError(
+          "too-many-samples",
+          `The request has ${samples} samples; at most ${options.maxSamples} are accepted in one request. Split the well into several requests.`,
+        );
+      }
+      const parsed = columnsRequest(body);
+      return columnsAnswer(computeElasticLog(parsed.core), parsed.core, body.units, parsed);
+    },
+  );
+}

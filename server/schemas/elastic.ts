@@ -1,0 +1,167 @@
+import { z } from "zod";
+import { flagSummary, pointFlag, sampleFlag, severity } from "./flags.js";
+import { limitFields, limitsUsed } from "./limits.js";
+import { densityUnit, depthUnit, impedanceUnit, modulusUnit, slownessUnit, unitsUsed, velocityUnit, DEFAULT_UNITS } from "./units.js";
+
+const DEFAULT_NULL_VALUE = -999.25;
+
+const pointValue = (description: string, example: number) =>
+  z.coerce.number().optional().meta({ description, examples: [example] });
+
+const keepNegativePoisson = z
+  .stringbool()
+  .default(false)
+  .meta({
+    description:
+      "When true, samples with sqrt(4/3) < Vp/Vs < sqrt(2) (negative Poisson's ratio) keep their computed values, flagged vp_vs_below_sqrt2 as suspect instead of invalid. Accepts true/false (also 1/0, yes/no).",
+  });
+
+const sonicChoice = (value: { vp?: unknown; dtc?: unknown; vs?: unknown; dts?: unknown }, ctx: z.RefinementCtx) => {
+  for (const [velocity, slowness] of [
+    ["vp", "dtc"],
+    ["vs", "dts"],
+  ] as const) {
+    const given = [velocity, slowness].filter((name) => value[name] !== undefined);
+    if (given.length === 2) {
+      ctx.addIssue({ code: "custom", path: [slowness], message: `give either ${velocity} or ${slowness}, not both` });
+    } else if (given.length === 0) {
+      ctx.addIssue({
+        code: "custom",
+        path: [velocity],
+        message: `give ${velocity} (velocity) or ${slowness} (slowness); use the null value (-999.25) for a sample where it was not logged`,
+      });
+    }
+  }
+};
+
+export const elasticPointQuery = z
+  .strictObject({
+    vp: pointValue("Compressional velocity, in velocity_unit.", 3200),
+    vs: pointValue("Shear velocity, in velocity_unit.", 1800),
+    dtc: pointValue("Compressional slowness (DTC), in slowness_unit; replaces vp.", 95.25),
+    dts: pointValue("Shear slowness (DTS), in slowness_unit; replaces vs.", 169.33),
+    rho: z.coerce.number().meta({ description: "Bulk density (RHOB), in density_unit.", examples: [2.45] }),
+    velocity_unit: velocityUnit.default(DEFAULT_UNITS.velocity),
+    slowness_unit: slownessUnit.default(DEFAULT_UNITS.slowness),
+    density_unit: densityUnit.default(DEFAULT_UNITS.density),
+    modulus_unit: modulusUnit.default(DEFAULT_UNITS.modulus),
+    impedance_unit: impedanceUnit.default(DEFAULT_UNITS.impedance),
+    keep_negative_poisson: keepNegativePoisson,
+    null_value: z.coerce.number().default(DEFAULT_NULL_VALUE).meta({ description: "An input equal to this is absent (flag missing)." }),
+    ...limitFields,
+  })
+  .superRefine(sonicChoice);
+
+const propertyValue = (description: string) => z.number().nullable().meta({ description });
+
+export const elasticPointResponse = z
+  .object({
+    E: propertyValue("Young's modulus, in the modulus unit; null when the sample is invalid."),
+    nu: propertyValue("Poisson's ratio (dimensionless)."),
+    G: propertyValue("Shear modulus (mu, Lamé's second parameter)."),
+    K: propertyValue("Bulk modulus."),
+    lambda: propertyValue("Lamé's first parameter."),
+    M: propertyValue("P-wave modulus, rho*Vp^2 = K + 4G/3."),
+    vp_vs: propertyValue("Vp/Vs ratio."),
+    p_impedance: propertyValue("Acoustic (P) impedance rho*Vp, in the impedance unit."),
+    s_impedance: propertyValue("Shear impedance rho*Vs, in the impedance unit."),
+    lambda_rho: propertyValue("lambda*rho, in the modulus unit times g/cm3."),
+    mu_rho: propertyValue("mu*rho = G*rho, in the modulus unit times g/cm3."),
+    vp: propertyValue("Compressional velocity used (from vp or dtc), in the velocity unit; null when unusable."),
+    vs: propertyValue("Shear velocity used (from vs or dts), in the velocity unit; null when unusable."),
+    valid: z.boolean().meta({ description: "False when an invalid flag made the moduli null." }),
+    flags: z.array(pointFlag),
+    units: unitsUsed,
+    limits: limitsUsed,
+  })
+  .meta({ id: "ElasticPoint", description: "Dynamic elastic properties of one sample, with its QC flags." });
+
+const column = (description: string) =>
+  z
+    .custom<unknown[]>((value) => Array.isArray(value), { message: "expected an array of numbers and nulls" })
+    .optional()
+    .meta({ type: "array", items: { type: ["number", "null"] }, description });
+
+export const elasticColumnsBody = z
+  .strictObject({
+    depth: column("Depth of each sample (echoed, optional). Cannot be given with top/base."),
+    top: column("Top depth of each interval (interval input, with base)."),
+    base: column("Base depth of each interval (interval input, with top)."),
+    vp: column("Compressional velocity per sample, in units.velocity."),
+    vs: column("Shear velocity per sample, in units.velocity."),
+    dtc: column("Compressional slowness per sample, in units.slowness; replaces vp."),
+    dts: column("Shear slowness per sample, in units.slowness; replaces vs."),
+    rho: column("Bulk density per sample, in units.density. Required."),
+    units: z
+      .strictObject({
+        velocity: velocityUnit.default(DEFAULT_UNITS.velocity),
+        slowness: slownessUnit.default(DEFAULT_UNITS.slowness),
+        density: densityUnit.default(DEFAULT_UNITS.density),
+        modulus: modulusUnit.default(DEFAULT_UNITS.modulus),
+        depth: depthUnit.default(DEFAULT_UNITS.depth),
+        impedance: impedanceUnit.default(DEFAULT_UNITS.impedance),
+      })
+      .prefault({})
+      .meta({ description: "Units of the inputs and of the answer; each defaults as shown." }),
+    null_value: z.number().default(DEFAULT_NULL_VALUE).meta({ description: "A value equal to this is absent (flag missing). null inside arrays is absent too." }),
+    keep_negative_poisson: z.boolean().default(false).meta({ description: keepNegativePoisson.description }),
+    limits: z.strictObject(limitFields).prefault({}).meta({ description: "Overrides of the plausibility ranges (see LimitsUsed)." }),
+  })
+  .superRefine((body, ctx) => {
+    sonicChoice(body, ctx);
+    if (body.rho === undefined) ctx.addIssue({ code: "custom", path: ["rho"], message: "rho (bulk density) is required" });
+    if (body.depth !== undefined && (body.top !== undefined || body.base !== undefined)) {
+      ctx.addIssue({ code: "custom", path: ["depth"], message: "give depth for samples or top and base for intervals, not both" });
+    }
+    if ((body.top === undefined) !== (body.base === undefined)) {
+      ctx.addIssue({ code: "custom", path: [body.top === undefined ? "top" : "base"], message: "top and base go together" });
+    }
+  })
+  .meta({
+    id: "ElasticColumnsRequest",
+    description: "Columns of one value per depth sample (or interval). null, or the null_value, marks an absent value.",
+    examples: [
+      {
+        depth: [1500.0, 1500.1524, 1500.3048],
+        dtc: [95.2, 88.1, -999.25],
+        dts: [170.4, 162.0, 160.2],
+        rho: [2.45, 2.38, 2.41],
+        units: { slowness: "us/ft", density: "g/cm3", modulus: "GPa", depth: "m" },
+      },
+    ],
+  });
+
+const resultColumn = (description: string) =>
+  z.array(z.number().nullable()).meta({ description: `${description} One value per input row; null where the sample is invalid.` });
+
+export const elasticColumnsResponse = z
+  .object({
+    count: z.int().meta({ description: "Rows in the input and in every column of the answer." }),
+    depth: z.array(z.number().nullable()).optional().meta({ description: "Echo of the input depth column." }),
+    top: z.array(z.number().nullable()).optional(),
+    base: z.array(z.number().nullable()).optional(),
+    E: resultColumn("Young's modulus."),
+    nu: resultColumn("Poisson's ratio."),
+    G: resultColumn("Shear modulus."),
+    K: resultColumn("Bulk modulus."),
+    lambda: resultColumn("Lamé's first parameter."),
+    M: resultColumn("P-wave modulus."),
+    vp_vs: resultColumn("Vp/Vs."),
+    p_impedance: resultColumn("P impedance."),
+    s_impedance: resultColumn("S impedance."),
+    lambda_rho: resultColumn("lambda*rho."),
+    mu_rho: resultColumn("mu*rho."),
+    vp: resultColumn("Compressional velocity used, in the velocity unit (null where unusable)."),
+    vs: resultColumn("Shear velocity used, in the velocity unit (null where unusable)."),
+    flags: z.array(sampleFlag).meta({ description: "Every flag raised, in row order." }),
+    flag_legend: z
+      .record(z.string(), z.object({ severity, meaning: z.string() }))
+      .meta({ description: "Meaning and severity (under this request's options) of each flag code present in flags." }),
+    summary: flagSummary,
+    units: unitsUsed.extend({ depth: depthUnit }),
+    limits: limitsUsed,
+  })
+  .meta({ id: "ElasticColumns", description: "Dynamic elastic properties per sample, row-aligned with the input." });
+
+export type ElasticPointQuery = z.infer<typeof elasticPointQuery>;
+export type ElasticColumnsBody = z.infer<typeof elasticColumnsBody>;

@@ -1,0 +1,55 @@
+import { z } from "zod";
+import { DEFAULT_PLAUSIBILITY_LIMITS, type PlausibilityLimits } from "../../core/index.js";
+
+const bound = (description: string, fallback: number) =>
+  z.coerce.number().positive().optional().meta({ description: `${description} Default ${fallback}.` });
+
+const d = DEFAULT_PLAUSIBILITY_LIMITS;
+
+/**
+ * Overrides of the plausibility ranges behind the `suspect` range flags. The same names serve as
+ * query parameters (GET) and as the `limits` object of a body (POST).
+ */
+export const limitFields = {
+  vp_min_m_s: bound("Vp below this (m/s) is flagged vp_out_of_range.", d.vpMinMetresPerSecond),
+  vp_max_m_s: bound("Vp above this (m/s) is flagged vp_out_of_range.", d.vpMaxMetresPerSecond),
+  vs_min_m_s: bound("Vs below this (m/s) is flagged vs_out_of_range.", d.vsMinMetresPerSecond),
+  vs_max_m_s: bound("Vs above this (m/s) is flagged vs_out_of_range.", d.vsMaxMetresPerSecond),
+  rho_min_g_cm3: bound("Bulk density below this (g/cm3) is flagged density_out_of_range.", d.rhoMinGramsPerCubicCentimetre),
+  rho_max_g_cm3: bound("Bulk density above this (g/cm3) is flagged density_out_of_range.", d.rhoMaxGramsPerCubicCentimetre),
+  vp_vs_max: bound("Vp/Vs above this is flagged vp_vs_high.", d.vpVsMax),
+};
+
+export type LimitFields = { [K in keyof typeof limitFields]?: number };
+
+export const limitsUsed = z
+  .object({
+    vp_min_m_s: z.number(),
+    vp_max_m_s: z.number(),
+    vs_min_m_s: z.number(),
+    vs_max_m_s: z.number(),
+    rho_min_g_cm3: z.number(),
+    rho_max_g_cm3: z.number(),
+    vp_vs_max: z.number(),
+  })
+  .meta({ id: "LimitsUsed", description: "The plausibility ranges applied to this request (defaults are common practice; see README)." });
+
+export const toPlausibilityLimits = (fields: LimitFields): Partial<PlausibilityLimits> => ({
+  vpMinMetresPerSecond: fields.vp_min_m_s,
+  vpMaxMetresPerSecond: fields.vp_max_m_s,
+  vsMinMetresPerSecond: fields.vs_min_m_s,
+  vsMaxMetresPerSecond: fields.vs_max_m_s,
+  rhoMinGramsPerCubicCentimetre: fields.rho_min_g_cm3,
+  rhoMaxGramsPerCubicCentimetre: fields.rho_max_g_cm3,
+  vpVsMax: fields.vp_vs_max,
+});
+
+export const fromPlausibilityLimits = (limits: PlausibilityLimits): z.infer<typeof limitsUsed> => ({
+  vp_min_m_s: limits.vpMinMetresPerSecond,
+  vp_max_m_s: limits.vpMaxMetresPerSecond,
+  vs_min_m_s: limits.vsMinMetresPerSecond,
+  vs_max_m_s: limits.vsMaxMetresPerSecond,
+  rho_min_g_cm3: limits.rhoMinGramsPerCubicCentimetre,
+  rho_max_g_cm3: limits.rhoMaxGramsPerCubicCentimetre,
+  vp_vs_max: limits.vpVsMax,
+});

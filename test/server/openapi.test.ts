@@ -1,0 +1,52 @@
+import { readFileSync } from "node:fs";
+import { Validator } from "@seriousme/openapi-schema-validator";
+import { describe, expect, it } from "vitest";
+import { parse } from "yaml";
+import { FLAG_CODES } from "../../core/index.js";
+import { generateOpenApiYaml } from "../../server/openapi-document.js";
+import { PROBLEM_KINDS } from "../../server/problems.js";
+import { build } from "../helpers/build.js";
+
+const committed = readFileSync(new URL("../../openapi.yaml", import.meta.url), "utf8");
+
+describe("openapi.yaml", () => {
+  it("is exactly what the routes' zod schemas produce (run `npm run openapi` after changing a route or schema)", async () => {
+    expect(await generateOpenApiYaml()).toBe(committed);
+  });
+
+  it("is a valid OpenAPI 3.1 document (OpenAPI Initiative JSON schema, via @seriousme/openapi-schema-validator)", async () => {
+    const result = await new Validator().validate(parse(committed));
+    expect(result.errors ?? []).toEqual([]);
+    expect(result.valid).toBe(true);
+    expect(parse(committed).openapi).toBe("3.1.0");
+  });
+
+  it("describes every endpoint, unit option, flag code, and error response with problem+json", () => {
+    const document = parse(committed);
+    expect(Object.keys(document.paths).sort()).toEqual(
+      ["/livez", "/readyz", "/openapi.yaml", "/openapi.json", "/problems/{slug}", "/v1/elastic"].sort(),
+    );
+    const text = JSON.stringify(document);
+    for (const code of FLAG_CODES) expect(text).toContain(code);
+    for (const unit of ["m/s", "km/s", "ft/s", "us/ft", "us/m", "g/cm3", "kg/m3", "GPa", "MPa", "Pa", "psi", "Mpsi"]) {
+      expect(text).toContain(`"${unit}"`);
+    }
+    for (const operation of [document.paths["/v1/elastic"].get, document.paths["/v1/elastic"].post]) {
+      for (const status of ["400", "413", "415", "500"]) {
+        expect(operation.responses[status].content).toHaveProperty(["application/problem+json"]);
+      }
+    }
+    expect(Object.keys(PROBLEM_KINDS).length).toBeGreaterThan(5);
+  });
+
+  it("is served at /openapi.yaml and /openapi.json, and /docs renders an interactive reference", async () => {
+    const app = await build();
+    const yaml = await app.inject({ url: "/openapi.yaml" });
+    expect(yaml.statusCode).toBe(200);
+    expect(yaml.body).toBe(committed);
+    expect((await app.inject({ url: "/openapi.json" })).json()).toEqual(parse(committed));
+    const docs = await app.inject({ url: "/docs/" });
+    expect(docs.statusCode).toBe(200);
+    expect(docs.headers["content-type"]).toMatch(/text\/html/);
+  });
+});

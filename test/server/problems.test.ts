@@ -1,0 +1,56 @@
+import { describe, expect, it } from "vitest";
+import { buildApp } from "../../server/app.js";
+import { PROBLEM_KINDS } from "../../server/problems.js";
+import { problemSchema } from "../../server/schemas/problem.js";
+import { build } from "../helpers/build.js";
+
+const raw = async (method: "GET" | "POST", url: string, payload?: string, contentType?: string) => {
+  const app = await build();
+  return app.inject({ method, url, payload, headers: contentType ? { "content-type": contentType } : {} });
+};
+
+describe("problem details (RFC 9457)", () => {
+  it.each([
+    ["malformed JSON", "POST", "/v1/elastic", '{"vp": [1, 2', "application/json", 400, "/problems/malformed-body", "not valid JSON"],
+    ["an empty JSON body", "POST", "/v1/elastic", "", "application/json", 400, "/problems/malformed-body", "empty"],
+    ["a __proto__ key", "POST", "/v1/elastic", '{"vp":[1],"vs":[1],"rho":[1],"__proto__":{"x":1}}', "application/json", 400, "/problems/forbidden-key", "__proto__"],
+    ["a constructor key", "POST", "/v1/elastic", '{"vp":[1],"vs":[1],"rho":[1],"constructor":{"prototype":{"x":1}}}', "application/json", 400, "/problems/forbidden-key", "constructor"],
+    ["a text/plain body", "POST", "/v1/elastic", "vp=1", "text/plain", 415, "/problems/unsupported-media-type", "application/json"],
+    ["an unknown path", "GET", "/v2/elastic", undefined, undefined, 404, "/problems/not-found", "/docs"],
+  ] as const)("%s gives the right status and problem type, as application/problem+json, without a stack trace", async (_name, method, url, payload, type, status, problemType, words) => {
+    const response = await raw(method, url, payload, type);
+    expect(response.statusCode).toBe(status);
+    expect(response.headers["content-type"]).toMatch(/^application\/problem\+json/);
+    const body = problemSchema.parse(response.json());
+    expect(body).toMatchObject({ type: problemType, status, detail: expect.stringContaining(words) });
+    expect(response.body).not.toMatch(/at .*\.(ts|js):\d+/);
+  });
+
+  it("the JSON syntax error names the line and column", async () => {
+    const response = await raw("POST", "/v1/elastic", '{"vp": [1],\n "vs": [1 "rho": [2]}', "application/json");
+    expect(response.json().detail).toContain("line 2, column");
+  });
+
+  it("every problem type URI resolves to an explanation (RFC 9457 §3.1.1)", async () => {
+    const app = await build();
+    for (const [slug, kind] of Object.entries(PROBLEM_KINDS)) {
+      const response = await app.inject({ url: `/problems/${slug}` });
+      expect(response.statusCode).toBe(200);
+      expect(response.json()).toMatchObject({ type: `/problems/${slug}`, status: kind.status, how_to_fix: kind.fix });
+    }
+    expect((await app.inject({ url: "/problems/nonsense" })).statusCode).toBe(404);
+    expect((await app.inject({ url: "/problems/toString" })).statusCode).toBe(404);
+  });
+
+  it("an unexpected fault is a 500 problem with the request id and without internals", async () => {
+    const fresh = await buildApp({ logger: false });
+    fresh.get("/fault-for-test", async () => {
+      throw new Error("secret internal detail");
+    });
+    const response = await fresh.inject({ url: "/fault-for-test", headers: { "x-request-id": "abc-123" } });
+    expect(response.statusCode).toBe(500);
+    expect(response.json()).toMatchObject({ type: "/problems/internal-error", request_id: "abc-123" });
+    expect(response.body).not.toContain("secret internal detail");
+    await fresh.close();
+  });
+});
