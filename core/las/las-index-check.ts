@@ -1,0 +1,101 @@
+import type { LasWarning } from "./las-document.js";
+
+/** A number read from a `~Well` item, with the line it is on. */
+export interface LasNumberItem {
+  value: number | undefined;
+  line: number;
+}
+
+export interface LasIndexCheck {
+  /** Takes the index value of each sample, in file order, with the line where the sample begins. */
+  sample(index: number, line: number): void;
+  finish(): LasWarning[];
+}
+
+const readable = (value: number): string => String(Number(value.toPrecision(10)));
+
+/** Tracks the first place where a rule is broken and how many times it is. */
+const tally = () => {
+  let first: { line: number; message: string } | undefined;
+  let count = 0;
+  return {
+    add(line: number, message: () => string) {
+      if (count++ === 0) first = { line, message: message() };
+    },
+    warning(): LasWarning[] {
+      if (first === undefined) return [];
+      const more = count > 1 ? ` (and ${count - 1} more place${count > 2 ? "s" : ""})` : "";
+      return [{ line: first.line, message: first.message + more }];
+    },
+  };
+};
+
+/**
+ * Compares the index (first curve) with STRT, STOP and STEP of `~Well` (CWLS LAS 2.0, Appendix 1
+ * Part 4, ~W: STEP negative when STRT > STOP, zero for a variable step). Mismatches are warnings;
+ * the samples are kept as written.
+ */
+export const createIndexCheck = (start: LasNumberItem, stop: LasNumberItem, step: LasNumberItem): LasIndexCheck => {
+  const stepValue = step.value;
+  const tolerance = Math.abs(stepValue ?? 0) * 1e-3 || 1e-6;
+  const stepMismatch = tally();
+  const directionChange = tally();
+  let previous: number | undefined;
+  let direction = 0;
+  let first: { index: number; line: number } | undefined;
+  let last: { index: number; line: number } | undefined;
+
+  const sample = (index: number, line: number): void => {
+    if (first === undefined) first = { index, line };
+    last = { index, line };
+    if (previous !== undefined) {
+      const change = index - previous;
+      const from = previous;
+      if (stepValue !== undefined && stepValue !== 0) {
+        if (Math.abs(change - stepValue) > tolerance) {
+          stepMismatch.add(
+            line,
+            () => `STEP says ${readable(stepValue)} but the index changes by ${readable(change)} (from ${readable(from)} to ${readable(index)})`,
+          );
+        }
+      } else if (direction === 0) {
+        direction = Math.sign(change);
+      } else if (Math.sign(change) !== direction) {
+        directionChange.add(
+          line,
+          () => `the index does not keep to one direction: it goes from ${readable(from)} to ${readable(index)}`,
+        );
+      }
+    }
+    previous = index;
+  };
+
+  const headerWarnings = (): LasWarning[] => {
+    const warnings: LasWarning[] = [];
+    if (first !== undefined && start.value !== undefined && Math.abs(first.index - start.value) > tolerance) {
+      warnings.push({
+        line: first.line,
+        message: `STRT says ${readable(start.value)} (line ${start.line}) but the first sample's index is ${readable(first.index)}`,
+      });
+    }
+    if (last !== undefined && stop.value !== undefined && Math.abs(last.index - stop.value) > tolerance) {
+      warnings.push({
+        line: last.line,
+        message: `STOP says ${readable(stop.value)} (line ${stop.line}) but the last sample's index is ${readable(last.index)}`,
+      });
+    }
+    if (start.value !== undefined && stop.value !== undefined && stepValue !== undefined && stepValue !== 0) {
+      if (start.value !== stop.value && Math.sign(stop.value - start.value) !== Math.sign(stepValue)) {
+        warnings.push({
+          line: step.line,
+          message: `STEP ${readable(stepValue)} goes the wrong way from STRT ${readable(start.value)} to STOP ${readable(stop.value)}`,
+        });
+      }
+    }
+    return warnings;
+  };
+
+  const finish = (): LasWarning[] => [...headerWarnings(), ...stepMismatch.warning(), ...directionChange.warning()];
+
+  return { sample, finish };
+};

@@ -1,0 +1,208 @@
+import { WellFileError } from "../well-file-error.js";
+import { curvesFromItems } from "./las-curves.js";
+import { createLasDataReader, type LasDataReader } from "./las-data-reader.js";
+import {
+  isItemSection,
+  type LasDocument,
+  type LasHeaderItem,
+  type LasItemSection,
+  type LasSection,
+  type LasWarning,
+} from "./las-document.js";
+import { parseLasHeaderLine } from "./las-header-line.js";
+import { createIndexCheck, type LasIndexCheck } from "./las-index-check.js";
+import { recoverLegacyWellItem } from "./las-legacy-well-item.js";
+import { summariseWell } from "./las-well-summary.js";
+import { createLineSplitter } from "./text-line-splitter.js";
+
+export interface LasReader {
+  /** Reads the next piece of the text; pieces may split a line or a number anywhere. */
+  push(chunk: string): void;
+  /** Reads the end of the text and returns the document; throws `WellFileError` when the file cannot be read. */
+  end(): LasDocument;
+}
+
+/** Only the first letter after the tilde names a section (CWLS LAS 2.0, Appendix 1 Part 3, "~"). */
+const SECTION_KINDS: Record<string, LasSection["kind"]> = {
+  V: "version",
+  W: "well",
+  C: "curve",
+  P: "parameter",
+  O: "other",
+  A: "data",
+};
+
+const curveItemsOf = (sections: readonly LasSection[]): LasHeaderItem[] =>
+  sections.flatMap((section) => (isItemSection(section) && section.kind === "curve" ? section.items : []));
+
+const firstNonBlank = (text: string): number => {
+  let i = 0;
+  while (i < text.length && (text[i] === " " || text[i] === "\t")) i++;
+  return i;
+};
+
+/**
+ * Reads a LAS 1.2 or 2.0 file handed over in chunks. Header lines are kept; samples go straight
+ * into one Float64Array per curve, so the whole text is never held.
+ */
+export const createLasReader = (): LasReader => {
+  const sections: LasSection[] = [];
+  const warnings: LasWarning[] = [];
+  let current: LasSection | undefined;
+  let version: { value: string; major: number } | undefined;
+  let wrapped: boolean | undefined;
+  let data: { reader: LasDataReader; indexCheck: LasIndexCheck; line: number } | undefined;
+  const legacyItems: LasHeaderItem[] = [];
+  let sawReplacementCharacter = false;
+  let lastLine = 0;
+
+  const versionItem = (item: LasHeaderItem): void => {
+    const mnemonic = item.mnemonic.toUpperCase();
+    if (mnemonic === "VERS") {
+      const major = Math.trunc(Number.parseFloat(item.value));
+      if (major === 3) {
+        throw new WellFileError(
+          "las_version_3_unsupported",
+          `VERS ${item.value}: LAS 3.0 is not supported; convert the file to LAS 2.0`,
+          item.line,
+        );
+      }
+      if (major !== 1 && major !== 2) {
+        warnings.push({ line: item.line, message: `VERS ${JSON.stringify(item.value)} is not a LAS version this reader knows; read as LAS 2.0` });
+      }
+      version = { value: item.value, major };
+    } else if (mnemonic === "WRAP") {
+      const answer = item.value.toUpperCase();
+      wrapped = answer.startsWith("Y");
+      if (answer !== "YES" && answer !== "NO") {
+        warnings.push({ line: item.line, message: `WRAP ${JSON.stringify(item.value)} is neither YES nor NO; read as ${wrapped ? "YES" : "NO"}` });
+      }
+    }
+  };
+
+  const headerItem = (section: LasItemSection, text: string, line: number): void => {
+    const parsed = parseLasHeaderLine(text, line);
+    if (parsed === undefined) {
+      if (section.kind === "curve") {
+        throw new WellFileError("las_bad_curve_line", `${JSON.stringify(text.trim())} in ~Curve is not a MNEM.UNIT VALUE : DESCRIPTION line`, line);
+      }
+      warnings.push({ line, message: `${JSON.stringify(text.trim())} is not a MNEM.UNIT VALUE : DESCRIPTION line; ignored` });
+      return;
+    }
+    let item = parsed;
+    if (section.kind === "version") versionItem(item);
+    if (section.kind === "well" && version?.major === 1) {
+      const recovered = recoverLegacyWellItem(item);
+      if (recovered !== undefined) {
+        legacyItems.push(item);
+        item = recovered;
+      }
+    }
+    section.items.push(item);
+  };
+
+  const beginData = (line: number): void => {
+    const curveCount = curveItemsOf(sections).length;
+    if (curveCount === 0) {
+      throw new WellFileError("las_no_curves", "~A begins but no ~Curve section describes any curve", line);
+    }
+    const versionLine = sections[0].line;
+    if (version === undefined) warnings.push({ line: versionLine, message: "~Version has no VERS item; read as LAS 2.0" });
+    if (wrapped === undefined) warnings.push({ line: versionLine, message: "~Version has no WRAP item; read as WRAP NO" });
+    const { numbers } = summariseWell(sections);
+    const indexCheck = createIndexCheck(numbers.STRT, numbers.STOP, numbers.STEP);
+    const reader = createLasDataReader({
+      curveCount,
+      wrapped: wrapped ?? false,
+      onSample: indexCheck.sample,
+      warn: (warningLine, message) => warnings.push({ line: warningLine, message }),
+    });
+    data = { reader, indexCheck, line };
+  };
+
+  const startSection = (title: string, line: number): void => {
+    const kind = SECTION_KINDS[title.charAt(1).toUpperCase()] ?? "unknown";
+    if (sections.length === 0 && kind !== "version") {
+      throw new WellFileError("las_missing_version_section", `the file starts with ${title} but a LAS file must start with ~Version`, line);
+    }
+    const section: LasSection =
+      kind === "data"
+        ? { kind, title, line }
+        : kind === "other" || kind === "unknown"
+          ? { kind, title, line, lines: [] }
+          : { kind, title, line, items: [] };
+    sections.push(section);
+    current = section;
+    if (kind === "data") beginData(line);
+  };
+
+  const dataLine = (reader: LasDataReader, text: string, line: number): void => {
+    const start = firstNonBlank(text);
+    if (text[start] === "#") return;
+    if (text[start] === "~") {
+      throw new WellFileError("las_section_after_data", `${text.trim()} follows ~A, which must be the last section`, line);
+    }
+    reader.line(text, line);
+  };
+
+  const headerLine = (text: string, line: number): void => {
+    const trimmed = text.trim();
+    if (trimmed === "" || trimmed.startsWith("#")) return;
+    if (!sawReplacementCharacter && text.includes("\uFFFD")) {
+      sawReplacementCharacter = true;
+      warnings.push({ line, message: "the header has bytes that are not valid UTF-8 (shown as \uFFFD); read as they are" });
+    }
+    if (trimmed.startsWith("~")) return startSection(trimmed, line);
+    if (current === undefined) {
+      throw new WellFileError("las_missing_version_section", "a LAS file must start with ~Version; this line comes before any section", line);
+    }
+    if (isItemSection(current)) headerItem(current, text, line);
+    else if (current.kind !== "data") current.lines.push({ text: text.trimEnd(), line });
+  };
+
+  const splitter = createLineSplitter((text, line) => {
+    lastLine = line;
+    if (data !== undefined) dataLine(data.reader, text, line);
+    else headerLine(text, line);
+  });
+
+  const end = (): LasDocument => {
+    splitter.end();
+    if (sections.length === 0) {
+      throw new WellFileError("las_missing_version_section", "the file has no ~Version section (no LAS header at all)", Math.max(lastLine, 1));
+    }
+    if (data === undefined) {
+      throw new WellFileError("las_no_data_section", `the file ends at line ${lastLine} without an ~A section: a header with no samples`, lastLine);
+    }
+    const { columns, wrapped: dataWrapped } = data.reader.finish();
+    const { well, warnings: wellWarnings } = summariseWell(sections);
+    const { curves, warnings: curveWarnings } = curvesFromItems(curveItemsOf(sections));
+    const allWarnings = [...warnings, ...wellWarnings, ...curveWarnings, ...data.indexCheck.finish()];
+    if (legacyItems.length > 0) {
+      const mnemonics = legacyItems.map((item) => item.mnemonic).join(", ");
+      allWarnings.push({
+        line: legacyItems[0].line,
+        message: `LAS 1.2 value/description swap detected in ~Well (${mnemonics}): values taken from after the colon`,
+      });
+    }
+    if (columns[0].length === 0) allWarnings.push({ line: data.line, message: "~A holds no samples" });
+    allWarnings.sort((a, b) => a.line - b.line);
+    return {
+      version: version?.value ?? "2.0",
+      wrapped: dataWrapped,
+      sections,
+      well,
+      table: { curves, columns, nullValue: well.nullValue },
+      warnings: allWarnings,
+    };
+  };
+
+  return { push: splitter.push, end };
+};
+
+/** Reads a whole LAS text at once (see `createLasReader`). */
+export const parseLas = (text: string): LasDocument => {
+  const reader = createLasReader();
+  reader.push(text);
+  return reader.end();
+};

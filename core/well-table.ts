@@ -1,0 +1,20 @@
+/** A curve (column) of a well file, as its header describes it. */
+export interface CurveInfo {
+  /** Mnemonic as written, made unique within the file (a repeated `DT` becomes `DT`, `DT:2`, …). */
+  mnemonic: string;
+  /** Unit exactly as written in the file (`US/F`, `G/C3`, `` for none). */
+  unit: string;
+  description: string;
+}
+
+/**
+ * A well's samples as columns, whatever file they came from.
+ * Values are kept as read: a LAS null value (e.g. −999.25) stays in the column; an empty CSV cell is NaN.
+ */
+export interface WellTable {
+  curves: CurveInfo[];
+  /** One column per curve, all of the same length, in file order. */
+  columns: Float64Array[];
+  /** Value that marks an absent sample in this file, when the file declares one. */
+  nullValue: number | undefined;
+}

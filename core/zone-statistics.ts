@@ -1,0 +1,121 @@
+import { InputIssues, type InputIssue } from "./input-issues.js";
+import { requireEqualLengths } from "./numeric-column.js";
+import { percentileOfSorted } from "./percentile.js";
+
+export interface Zone {
+  name: string;
+  /** Shallower bound, in the unit of the depth column. */
+  top: number;
+  /** Deeper bound, in the unit of the depth column. */
+  base: number;
+}
+
+/** Statistics of one property over the finite values of a zone; null when it has none. */
+export interface PropertyStatistics {
+  /** Samples in the zone. */
+  count: number;
+  /** Samples in the zone whose value is finite. */
+  valid: number;
+  mean: number | null;
+  min: number | null;
+  p10: number | null;
+  p50: number | null;
+  p90: number | null;
+  max: number | null;
+}
+
+export interface ZoneSummary {
+  name: string;
+  top: number;
+  base: number;
+  /** Samples whose depth lies in the zone. */
+  count: number;
+  /** Samples in the zone with no invalidating flag. */
+  valid: number;
+  /** Fraction of the zone's samples carrying any flag; null for a zone with no sample. */
+  flagged_fraction: number | null;
+  properties: Record<string, PropertyStatistics>;
+}
+
+const checkZones = (zones: readonly Zone[]): void => {
+  const issues: InputIssue[] = [];
+  zones.forEach((zone, i) => {
+    if (!Number.isFinite(zone.top)) issues.push({ field: `zones[${i}].top`, message: "must be a finite depth" });
+    if (!Number.isFinite(zone.base)) issues.push({ field: `zones[${i}].base`, message: "must be a finite depth" });
+    else if (Number.isFinite(zone.top) && zone.base <= zone.top) {
+      issues.push({ field: `zones[${i}].base`, message: `must be deeper than the top (${zone.top}), got ${zone.base}` });
+    }
+  });
+  if (issues.length > 0) throw new InputIssues(issues);
+};
+
+const statistics = (column: Float64Array, members: Uint32Array, scratch: Float64Array): PropertyStatistics => {
+  let valid = 0;
+  let sum = 0;
+  for (let j = 0; j < members.length; j++) {
+    const value = column[members[j]];
+    if (Number.isFinite(value)) {
+      scratch[valid++] = value;
+      sum += value;
+    }
+  }
+  if (valid === 0) {
+    return { count: members.length, valid, mean: null, min: null, p10: null, p50: null, p90: null, max: null };
+  }
+  const sorted = scratch.subarray(0, valid).sort();
+  return {
+    count: members.length,
+    valid,
+    mean: sum / valid,
+    min: sorted[0],
+    p10: percentileOfSorted(sorted, 10),
+    p50: percentileOfSorted(sorted, 50),
+    p90: percentileOfSorted(sorted, 90),
+    max: sorted[valid - 1],
+  };
+};
+
+/**
+ * Per-zone statistics of each property. A zone holds the samples with top ≤ depth < base, and
+ * those at depth = base as well unless another zone of the request starts there: contiguous
+ * zones share no sample, and a zone alone keeps its base sample. Membership goes by depth value,
+ * so the depth column may run in either direction; a NaN depth is in no zone, and zones may overlap.
+ * Percentiles interpolate between closest ranks (Hyndman & Fan 1996, definition 7); NaN and
+ * infinite values are left out of every statistic.
+ */
+export const summariseZones = (
+  depth: Float64Array,
+  zones: readonly Zone[],
+  properties: Readonly<Record<string, Float64Array>>,
+  flags: Uint32Array,
+  invalidMask: number,
+): ZoneSummary[] => {
+  const namedProperties = Object.entries(properties);
+  requireEqualLengths({
+    depth,
+    flags,
+    ...Object.fromEntries(namedProperties.map(([name, column]) => [`properties.${name}`, column])),
+  });
+  checkZones(zones);
+  const tops = new Set(zones.map((zone) => zone.top));
+  const memberBuffer = new Uint32Array(depth.length);
+  const scratch = new Float64Array(depth.length);
+  return zones.map(({ name, top, base }) => {
+    const baseIncluded = !tops.has(base);
+    let count = 0;
+    let valid = 0;
+    let flagged = 0;
+    for (let i = 0; i < depth.length; i++) {
+      const d = depth[i];
+      if (!(d >= top && (d < base || (d === base && baseIncluded)))) continue;
+      memberBuffer[count++] = i;
+      const mask = flags[i];
+      if (mask !== 0) flagged++;
+      if ((mask & invalidMask) === 0) valid++;
+    }
+    const members = memberBuffer.subarray(0, count);
+    const summaries: Record<string, PropertyStatistics> = {};
+    for (const [property, column] of namedProperties) summaries[property] = statistics(column, members, scratch);
+    return { name, top, base, count, valid, flagged_fraction: count === 0 ? null : flagged / count, properties: summaries };
+  });
+};
