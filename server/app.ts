@@ -12,6 +12,7 @@ import { transformObject } from "./openapi-components.js";
 import { installProblemHandlers } from "./plugins/problem-handlers.js";
 import elasticRoutes from "./routes/elastic.js";
 import healthRoutes from "./routes/health.js";
+import logsRoutes from "./routes/logs.js";
 import referenceRoutes from "./routes/reference.js";
 import { SERVICE_VERSION } from "./version.js";
 
@@ -81,6 +82,7 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
       servers: [{ url: "http://127.0.0.1:8080", description: "Local service started with npm start" }],
       tags: [
         { name: "elastic", description: "Dynamic elastic properties and QC flags." },
+        { name: "wells", description: "Whole wells: LAS 2.0 and CSV files in and out." },
         { name: "operations", description: "Probes for orchestrators and load balancers." },
         { name: "reference", description: "The contract and the problem types." },
       ],
@@ -94,5 +96,6 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
   await app.register(healthRoutes);
   await app.register(referenceRoutes);
   await app.register(elasticRoutes, { maxSamples: config.maxSamples });
+  await app.register(logsRoutes, { maxSamples: config.maxSamples, fileBodyLimitBytes: config.fileBodyLimitBytes });
   return app;
 }

@@ -5,6 +5,8 @@ export interface ServiceConfig {
   logLevel: string;
   /** Largest JSON request body, bytes. */
   jsonBodyLimitBytes: number;
+  /** Largest uploaded well file (LAS or CSV), bytes; files are read as a stream, so this bounds time, not memory. */
+  fileBodyLimitBytes: number;
   /** Most samples (rows) one request may carry. */
   maxSamples: number;
   /** Whole request (headers and body) must arrive within this, ms. */
@@ -24,7 +26,8 @@ export const DEFAULT_CONFIG: Readonly<ServiceConfig> = Object.freeze({
   host: "127.0.0.1",
   logLevel: "info",
   jsonBodyLimitBytes: 256 * 1024 * 1024,
-  maxSamples: 2_000_000,
+  fileBodyLimitBytes: 1024 * 1024 * 1024,
+  maxSamples: 5_000_000,
   requestTimeoutMs: 120_000,
   keepAliveTimeoutMs: 72_000,
   headersTimeoutMs: 20_000,
@@ -35,6 +38,7 @@ export const DEFAULT_CONFIG: Readonly<ServiceConfig> = Object.freeze({
 const ENV_NAMES: Record<Exclude<keyof ServiceConfig, "host" | "logLevel">, string> = {
   port: "PORT",
   jsonBodyLimitBytes: "JSON_BODY_LIMIT_BYTES",
+  fileBodyLimitBytes: "FILE_BODY_LIMIT_BYTES",
   maxSamples: "MAX_SAMPLES",
   requestTimeoutMs: "REQUEST_TIMEOUT_MS",
   keepAliveTimeoutMs: "KEEP_ALIVE_TIMEOUT_MS",

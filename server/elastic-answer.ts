@@ -14,6 +14,7 @@ import {
   type SlownessUnit,
   type VelocityUnit,
 } from "../core/index.js";
+import { OUTPUT_PROPERTIES, type PropertyKey } from "./output-properties.js";
 import { fromPlausibilityLimits } from "./schemas/limits.js";
 
 const MEANING = new Map(FLAGS.map((flag) => [flag.code, flag.meaning]));
@@ -119,19 +120,7 @@ export const columnsAnswer = (
     ...(echo.depth && { depth: plain(echo.depth) }),
     ...(echo.top && { top: plain(echo.top) }),
     ...(echo.base && { base: plain(echo.base) }),
-    E: plain(log.youngsModulus),
-    nu: plain(log.poissonsRatio),
-    G: plain(log.shearModulus),
-    K: plain(log.bulkModulus),
-    lambda: plain(log.lameLambda),
-    M: plain(log.pWaveModulus),
-    vp_vs: plain(log.vpVsRatio),
-    p_impedance: plain(log.pImpedance),
-    s_impedance: plain(log.sImpedance),
-    lambda_rho: plain(log.lambdaRho),
-    mu_rho: plain(log.muRho),
-    vp: plain(log.vp),
-    vs: plain(log.vs),
+    ...(Object.fromEntries(OUTPUT_PROPERTIES.map((property) => [property.key, plain(property.column(log))])) as Record<PropertyKey, number[]>),
     flags: sampleFlags(log),
     flag_legend: legend,
     summary,

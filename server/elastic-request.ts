@@ -98,3 +98,7 @@ export const columnsRequest = (body: ElasticColumnsBody): ColumnsRequest => {
     base: columns.base,
   };
 };
+
+/** Where an interval sits for zone membership: halfway between its top and base. */
+export const intervalMidpoints = (top: Float64Array, base: Float64Array): Float64Array =>
+  top.map((value, i) => (value + base[i]) / 2);

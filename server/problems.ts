@@ -13,11 +13,26 @@ export const PROBLEM_KINDS = {
     title: "The body contains a forbidden key",
     fix: "Remove keys named __proto__ or constructor from the JSON body; they are refused to protect the service.",
   },
+  "not-acceptable": {
+    status: 406,
+    title: "None of the accepted media types can be produced",
+    fix: "Ask for application/json, text/csv or application/x-las in Accept, or use the format query parameter.",
+  },
   "not-found": { status: 404, title: "No such resource", fix: "Check the path against /openapi.yaml or /docs." },
   "method-not-allowed": { status: 405, title: "Method not allowed on this path", fix: "Use one of the methods listed in the Allow header." },
   "body-too-large": { status: 413, title: "The body is too large", fix: "Send fewer samples per request, or raise the service's body limit (see README, Limits)." },
   "too-many-samples": { status: 413, title: "Too many samples in one request", fix: "Split the well into requests of at most the stated number of samples." },
   "unsupported-media-type": { status: 415, title: "Unsupported content type", fix: "Send the body with one of the content types this endpoint accepts (see /openapi.yaml)." },
+  "unreadable-file": {
+    status: 422,
+    title: "The well file cannot be read",
+    fix: "Correct the file at the line named in the detail (LAS 2.0 of the CWLS, or RFC 4180 CSV with a header row).",
+  },
+  "unusable-file": {
+    status: 422,
+    title: "The well file cannot be used as asked",
+    fix: "Name the curves with vp_curve, vs_curve, rho_curve, depth_curve, or their units with vp_unit, vs_unit, rho_unit, depth_unit.",
+  },
   "internal-error": { status: 500, title: "Internal error", fix: "This is a fault of the service, not of your request: report it with the request_id." },
 } as const;
 
@@ -30,6 +45,8 @@ export interface ProblemFieldError {
   field: string;
   /** Row of a column, when one element is wrong. */
   index?: number;
+  /** 1-based line of an uploaded file, when the problem is on one line. */
+  line?: number;
   message: string;
 }
 

@@ -1,6 +1,6 @@
 import type { FastifyError, FastifyInstance, FastifyReply, FastifyRequest } from "fastify";
 import { hasZodFastifySchemaValidationErrors } from "fastify-type-provider-zod";
-import { isInputIssues } from "../../core/index.js";
+import { isInputIssues, isWellFileError } from "../../core/index.js";
 import {
   PROBLEM_MEDIA_TYPE,
   isProblemError,
@@ -51,6 +51,13 @@ export const installProblemHandlers = (app: FastifyInstance, limits: { bodyLimit
     if (hasZodFastifySchemaValidationErrors(error)) {
       const errors = validationErrors(error);
       return send(reply, "invalid-request", `The request has ${errors.length} invalid field${errors.length === 1 ? "" : "s"}: ${errors.map((e) => `${e.field} (${e.message})`).join("; ")}.`, errors);
+    }
+    // Checked on `unknown`: a FastifyError fits the WellFileError shape, which would defeat the type guard.
+    const failure: unknown = error;
+    if (isWellFileError(failure)) {
+      return send(reply, "unreadable-file", `The well file cannot be read: ${failure.message}.`, [
+        { field: "body", ...(failure.line === undefined ? {} : { line: failure.line }), message: `${failure.code}: ${failure.message}` },
+      ]);
     }
     if (isInputIssues(error)) {
       const errors = error.issues.map((issue) => ({ ...issue, field: `body.${issue.field}` }));

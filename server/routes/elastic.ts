@@ -1,8 +1,9 @@
 import type { FastifyInstance } from "fastify";
 import type { ZodTypeProvider } from "fastify-type-provider-zod";
-import { computeElasticLog } from "../../core/index.js";
+import { computeElasticLog, summariseZones } from "../../core/index.js";
 import { columnsAnswer, pointAnswer } from "../elastic-answer.js";
-import { columnsRequest, pointRequest } from "../elastic-request.js";
+import { columnsRequest, intervalMidpoints, pointRequest } from "../elastic-request.js";
+import { propertyColumns } from "../output-properties.js";
 import { installJsonBodyParser } from "../plugins/json-body.js";
 import { ProblemError } from "../problems.js";
 import {
@@ -75,7 +76,11 @@ export default async function elasticRoutes(instance: FastifyInstance, options: 
         );
       }
       const parsed = columnsRequest(body);
-      return columnsAnswer(computeElasticLog(parsed.core), parsed.core, body.units, parsed);
+      const log = computeElasticLog(parsed.core);
+      const answer = columnsAnswer(log, parsed.core, body.units, parsed);
+      if (body.zones === undefined) return answer;
+      const depth = parsed.depth ?? intervalMidpoints(parsed.top as Float64Array, parsed.base as Float64Array);
+      return { ...answer, zones: summariseZones(depth, body.zones, propertyColumns(log), log.flags, log.invalidMask) };
     },
   );
 }

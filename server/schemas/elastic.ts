@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { flagSummary, pointFlag, sampleFlag, severity } from "./flags.js";
 import { limitFields, limitsUsed } from "./limits.js";
+import { zoneList, zoneSummarySchema } from "./zones.js";
 import { densityUnit, depthUnit, impedanceUnit, modulusUnit, slownessUnit, unitsUsed, velocityUnit, DEFAULT_UNITS } from "./units.js";
 
 const DEFAULT_NULL_VALUE = -999.25;
@@ -106,8 +107,14 @@ export const elasticColumnsBody = z
     null_value: z.number().default(DEFAULT_NULL_VALUE).meta({ description: "A value equal to this is absent (flag missing). null inside arrays is absent too." }),
     keep_negative_poisson: z.boolean().default(false).meta({ description: keepNegativePoisson.description }),
     limits: z.strictObject(limitFields).prefault({}).meta({ description: "Overrides of the plausibility ranges (see LimitsUsed)." }),
+    zones: zoneList.optional().meta({
+      description: "Formation intervals to summarise, in the depth unit; needs depth (or top and base, whose midpoints place each interval).",
+    }),
   })
   .superRefine((body, ctx) => {
+    if (body.zones !== undefined && body.depth === undefined && body.top === undefined) {
+      ctx.addIssue({ code: "custom", path: ["zones"], message: "zones need a depth column (or top and base) to place the samples" });
+    }
     sonicChoice(body, ctx);
     if (body.rho === undefined) ctx.addIssue({ code: "custom", path: ["rho"], message: "rho (bulk density) is required" });
     if (body.depth !== undefined && (body.top !== undefined || body.base !== undefined)) {
@@ -160,6 +167,7 @@ export const elasticColumnsResponse = z
     summary: flagSummary,
     units: unitsUsed.extend({ depth: depthUnit }),
     limits: limitsUsed,
+    zones: z.array(zoneSummarySchema).optional().meta({ description: "Per zone and property statistics, when zones were given." }),
   })
   .meta({ id: "ElasticColumns", description: "Dynamic elastic properties per sample, row-aligned with the input." });
 

@@ -1,0 +1,49 @@
+import { summariseZones, type Zone } from "../core/index.js";
+import { columnsAnswer, type UnitsChosen } from "./elastic-answer.js";
+import { propertyColumns } from "./output-properties.js";
+import { ProblemError } from "./problems.js";
+import type { WellConversion } from "./well-conversion.js";
+
+/** Zone statistics over a depth column, or a 400 problem when zones were asked for a well without depth. */
+export const zoneSummaries = (conversion: WellConversion, zones: readonly Zone[]) => {
+  if (conversion.depth === undefined) {
+    throw new ProblemError("unusable-file", "Zones were given but no depth curve was found; name it with depth_curve.");
+  }
+  return summariseZones(conversion.depth, zones, propertyColumns(conversion.log), conversion.log.flags, conversion.log.invalidMask);
+};
+
+const nullable = (value: string | undefined): string | null => (value === undefined || value === "" ? null : value);
+
+/** The JSON answer of `POST /v1/logs`: the columns of `/v1/elastic` plus how the file was read. */
+export const logsAnswer = (conversion: WellConversion, zones: readonly Zone[] | undefined) => {
+  const { file, request, curves } = conversion;
+  const slowness = [curves.vp, curves.vs].find((choice) => choice?.measure === "slowness");
+  const units: UnitsChosen & { depth: WellConversion["depthUnit"] } = {
+    velocity: request.velocityUnit,
+    slowness: (slowness?.unit as UnitsChosen["slowness"] | undefined) ?? "us/ft",
+    density: request.density.unit,
+    modulus: request.modulusUnit,
+    impedance: request.impedanceUnit,
+    depth: conversion.depthUnit,
+  };
+  const well = file.format === "las" ? file.las.well : undefined;
+  return {
+    ...columnsAnswer(conversion.log, request, units, { depth: conversion.depth }),
+    input_format: file.format,
+    well: {
+      name: nullable(well?.wellName),
+      company: nullable(well?.company),
+      field: nullable(well?.field),
+      location: nullable(well?.location),
+      date: nullable(well?.date),
+      unique_well_id: nullable(well?.uniqueWellId),
+      las_version: file.format === "las" ? file.las.version : null,
+      wrapped: file.format === "las" ? file.las.wrapped : null,
+      null_value: conversion.nullValue,
+    },
+    curves: curves as Required<Pick<typeof curves, "vp" | "vs" | "rho">> & Pick<typeof curves, "depth">,
+    input_curves: file.table.curves.map(({ mnemonic, unit, description }) => ({ mnemonic, unit, description })),
+    warnings: conversion.warnings,
+    ...(zones && { zones: zoneSummaries(conversion, zones) }),
+  };
+};

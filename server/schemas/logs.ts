@@ -1,0 +1,74 @@
+import { z } from "zod";
+import { elasticColumnsResponse } from "./elastic.js";
+import { limitFields } from "./limits.js";
+import { impedanceUnit, modulusUnit, velocityUnit, DEFAULT_UNITS } from "./units.js";
+import { zoneSummarySchema } from "./zones.js";
+
+const curveName = (role: string) =>
+  z.string().min(1).max(100).optional().meta({ description: `Name of the curve (LAS mnemonic or CSV column) to use as ${role}; detected from mnemonics and units when absent.` });
+const unitSpelling = (role: string, example: string) =>
+  z.string().min(1).max(40).optional().meta({ description: `Unit of the ${role} curve, overriding the file's (any accepted spelling, e.g. ${example}).` });
+
+export const logsQuery = z.strictObject({
+  vp_curve: curveName("the compressional sonic (velocity or slowness)"),
+  vs_curve: curveName("the shear sonic (velocity or slowness)"),
+  rho_curve: curveName("the bulk density"),
+  depth_curve: curveName("the depth (index)"),
+  vp_unit: unitSpelling("compressional", "us/ft, US/F, m/s"),
+  vs_unit: unitSpelling("shear", "us/ft, US/F, km/s"),
+  rho_unit: unitSpelling("density", "g/cm3, G/C3, kg/m3"),
+  depth_unit: unitSpelling("depth", "m, FT"),
+  format: z.enum(["json", "csv", "las"]).optional().meta({ description: "Answer format; overrides Accept (application/json, text/csv, application/x-las)." }),
+  modulus_unit: modulusUnit.default(DEFAULT_UNITS.modulus),
+  velocity_unit: velocityUnit.default(DEFAULT_UNITS.velocity).meta({ description: "Unit of the vp and vs columns of the answer." }),
+  impedance_unit: impedanceUnit.default(DEFAULT_UNITS.impedance),
+  keep_negative_poisson: z.stringbool().default(false).meta({ description: "Keep the values of samples with sqrt(4/3) < Vp/Vs < sqrt(2), flagged suspect." }),
+  null_value: z.coerce.number().optional().meta({ description: "Value marking an absent sample; default: the file's NULL (LAS ~Well), else -999.25." }),
+  zones: z
+    .string()
+    .max(20_000)
+    .optional()
+    .meta({
+      description: "Zones to summarise, as name:top:base separated by ; in the depth unit of the file (e.g. Linnet_Sand:1522.4:1561.8;Sorrel_Shale:1561.8:1640.3). A multipart upload may instead send a `zones` part holding a JSON array of {name, top, base}.",
+    }),
+  ...limitFields,
+});
+
+const roleChoice = z
+  .object({
+    mnemonic: z.string(),
+    index: z.int().meta({ description: "Column of the curve in the file, from 0." }),
+    measure: z.enum(["velocity", "slowness", "density", "depth"]),
+    unit: z.string(),
+    unit_as_written: z.string(),
+    unit_source: z.enum(["file", "query", "assumed"]),
+    reason: z.string().meta({ description: "Why this curve was chosen and how its unit was read." }),
+  })
+  .meta({ id: "CurveChoice" });
+
+export const logsJsonResponse = elasticColumnsResponse
+  .extend({
+    input_format: z.enum(["las", "csv"]),
+    well: z
+      .object({
+        name: z.string().nullable(),
+        company: z.string().nullable(),
+        field: z.string().nullable(),
+        location: z.string().nullable(),
+        date: z.string().nullable(),
+        unique_well_id: z.string().nullable(),
+        las_version: z.string().nullable(),
+        wrapped: z.boolean().nullable(),
+        null_value: z.number(),
+      })
+      .meta({ description: "Header facts of the well (LAS ~Well); null where the file gives none (always for CSV)." }),
+    curves: z
+      .object({ vp: roleChoice, vs: roleChoice, rho: roleChoice, depth: roleChoice.optional() })
+      .meta({ description: "Which curve was used for what, and why." }),
+    input_curves: z.array(z.object({ mnemonic: z.string(), unit: z.string(), description: z.string() })),
+    warnings: z.array(z.object({ line: z.int().optional(), message: z.string() })).meta({ description: "Things in the file worth knowing that did not stop the conversion." }),
+    zones: z.array(zoneSummarySchema).optional(),
+  })
+  .meta({ id: "WellConversion", description: "A whole well converted: columns row-aligned with the file's rows, plus how the file was read." });
+
+export type LogsQuery = z.infer<typeof logsQuery>;

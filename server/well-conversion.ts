@@ -1,0 +1,145 @@
+import {
+  acceptedSpellings,
+  computeElasticLog,
+  detectCurves,
+  InputIssues,
+  normaliseUnit,
+  type CurveMapping,
+  type CurveOverrides,
+  type DensityUnit,
+  type DepthUnit,
+  type ElasticLog,
+  type ElasticLogRequest,
+  type ImpedanceUnit,
+  type ModulusUnit,
+  type PlausibilityLimits,
+  type SonicCurve,
+  type UnitKind,
+  type VelocityUnit,
+} from "../core/index.js";
+import { ProblemError } from "./problems.js";
+import type { WellFile } from "./well-upload.js";
+
+type Role = "vp" | "vs" | "rho" | "depth";
+
+export interface ConversionOptions {
+  curves: CurveOverrides;
+  units: Partial<Record<Role, string>>;
+  nullValue: number | undefined;
+  keepNegativePoisson: boolean;
+  limits: PlausibilityLimits;
+  modulusUnit: ModulusUnit;
+  velocityUnit: VelocityUnit;
+  impedanceUnit: ImpedanceUnit;
+}
+
+/** How one role was filled: which curve, read in which unit, and why. */
+export interface RoleChoice {
+  mnemonic: string;
+  index: number;
+  measure: UnitKind;
+  unit: string;
+  unit_as_written: string;
+  unit_source: "file" | "query" | "assumed";
+  reason: string;
+}
+
+export interface WellConversion {
+  file: WellFile;
+  request: ElasticLogRequest;
+  log: ElasticLog;
+  curves: Partial<Record<Role, RoleChoice>>;
+  depth: Float64Array | undefined;
+  depthUnit: DepthUnit;
+  nullValue: number;
+  warnings: { line?: number; message: string }[];
+}
+
+const ROLE_KINDS: Record<Role, readonly UnitKind[]> = {
+  vp: ["slowness", "velocity"],
+  vs: ["slowness", "velocity"],
+  rho: ["density"],
+  depth: ["depth"],
+};
+const ASSUMED: Record<UnitKind, string> = { slowness: "us/ft", velocity: "m/s", density: "g/cm3", depth: "m" };
+const DEFAULT_NULL_VALUE = -999.25;
+
+const spellings = (role: Role) => ROLE_KINDS[role].flatMap((kind) => acceptedSpellings(kind)).join(", ");
+
+/** The unit of a chosen curve: the query's override, else the file's, else the usual unit of its measure (with a warning). */
+const resolveRole = (
+  role: Role,
+  choice: CurveMapping[Role] & object,
+  override: string | undefined,
+  warnings: WellConversion["warnings"],
+): RoleChoice => {
+  const base = { mnemonic: choice.mnemonic, index: choice.index, unit_as_written: choice.unitAsWritten, reason: choice.reason };
+  if (override !== undefined) {
+    const unit = normaliseUnit(override);
+    if (unit === undefined || !ROLE_KINDS[role].includes(unit.kind)) {
+      throw new ProblemError("invalid-request", `${role}_unit "${override}" is not a unit for this curve.`, [
+        { field: `query.${role}_unit`, message: `accepted: ${spellings(role)}` },
+      ]);
+    }
+    return { ...base, measure: unit.kind, unit: unit.unit, unit_source: "query" };
+  }
+  if (choice.unit !== undefined) return { ...base, measure: choice.measure, unit: choice.unit, unit_source: "file" };
+  if (choice.unitAsWritten.trim() !== "") {
+    throw new ProblemError(
+      "unusable-file",
+      `Curve ${choice.mnemonic} (used as ${role}) has the unit "${choice.unitAsWritten}", which is not one this service reads. Accepted spellings: ${spellings(role)}. Or give ${role}_unit.`,
+      [{ field: `body.${choice.mnemonic}`, message: `unknown unit "${choice.unitAsWritten}"` }],
+    );
+  }
+  const unit = ASSUMED[choice.measure];
+  warnings.push({ message: `curve ${choice.mnemonic} (${role}) has no unit; read as ${unit}. Give ${role}_unit to change this.` });
+  return { ...base, measure: choice.measure, unit, unit_source: "assumed" };
+};
+
+const sonic = (choice: RoleChoice, values: Float64Array): SonicCurve =>
+  choice.measure === "velocity"
+    ? { measure: "velocity", unit: choice.unit as VelocityUnit, values }
+    : { measure: "slowness", unit: choice.unit as "us/ft", values };
+
+/** Finds the curves, settles their units, and computes the elastic log of a whole well. */
+export const convertWell = (file: WellFile, options: ConversionOptions): WellConversion => {
+  let mapping: CurveMapping;
+  try {
+    mapping = detectCurves(file.table.curves, options.curves);
+  } catch (error) {
+    if (!(error instanceof InputIssues)) throw error;
+    throw new ProblemError(
+      "unusable-file",
+      `The curves to use could not be settled: ${error.message}.`,
+      error.issues.map((issue) => ({ field: `query.${issue.field}`, message: issue.message })),
+    );
+  }
+  const warnings: WellConversion["warnings"] = file.format === "las" ? [...file.las.warnings] : [];
+  const vp = resolveRole("vp", mapping.vp, options.units.vp, warnings);
+  const vs = resolveRole("vs", mapping.vs, options.units.vs, warnings);
+  const rho = resolveRole("rho", mapping.rho, options.units.rho, warnings);
+  const depth = mapping.depth && resolveRole("depth", mapping.depth, options.units.depth, warnings);
+  const nullValue = options.nullValue ?? file.table.nullValue ?? DEFAULT_NULL_VALUE;
+  const columns = file.table.columns;
+  const request: ElasticLogRequest = {
+    compressional: sonic(vp, columns[vp.index]),
+    shear: sonic(vs, columns[vs.index]),
+    density: { unit: rho.unit as DensityUnit, values: columns[rho.index] },
+    nullValue,
+    keepNegativePoisson: options.keepNegativePoisson,
+    limits: options.limits,
+    modulusUnit: options.modulusUnit,
+    velocityUnit: options.velocityUnit,
+    impedanceUnit: options.impedanceUnit,
+  };
+  return {
+    file,
+    request,
+    log: computeElasticLog(request),
+    curves: { vp, vs, rho, ...(depth && { depth }) },
+    depth: depth && columns[depth.index],
+    depthUnit: (depth?.unit as DepthUnit | undefined) ?? "m",
+    nullValue,
+    warnings,
+  };
+};
