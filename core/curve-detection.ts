@@ -23,8 +23,10 @@ export type DepthCurveChoice = CurveChoiceBase & { measure: "depth"; unit: Depth
 
 export interface CurveMapping {
   vp: SonicCurveChoice;
-  vs: SonicCurveChoice;
-  rho: DensityCurveChoice;
+  /** Undefined only when the shear role was declared optional and no curve fits it. */
+  vs: SonicCurveChoice | undefined;
+  /** Undefined only when the density role was declared optional and no curve fits it. */
+  rho: DensityCurveChoice | undefined;
   /** Undefined when no curve has a depth mnemonic and the first column cannot be the depth. */
   depth: DepthCurveChoice | undefined;
 }
@@ -161,9 +163,14 @@ const firstColumnAsDepth = (curves: readonly CurveInfo[]): CurveChoice | undefin
  * if recognised, measures the right thing. A recognised unit decides velocity against slowness.
  * With no depth mnemonic the first column is the depth, if free and not in a unit of another kind.
  * Throws `InputIssues` (fields `vp_curve`, `vs_curve`, `rho_curve`, `depth_curve`) listing every
- * override that names no curve or a curve of the wrong kind, and every role left without a curve.
+ * override that names no curve or a curve of the wrong kind, and every role left without a curve
+ * (except the `optional` ones, e.g. the shear role when Vs will be predicted from Vp).
  */
-export const detectCurves = (curves: readonly CurveInfo[], overrides: CurveOverrides = {}): CurveMapping => {
+export const detectCurves = (
+  curves: readonly CurveInfo[],
+  overrides: CurveOverrides = {},
+  optional: readonly ("vs" | "rho")[] = [],
+): CurveMapping => {
   const issues: InputIssue[] = [];
   const chosen: Partial<Record<CurveRole, CurveChoice>> = {};
   const taken = new Set<number>();
@@ -193,7 +200,9 @@ export const detectCurves = (curves: readonly CurveInfo[], overrides: CurveOverr
     if (overrides[role] !== undefined) continue;
     const { choice, passedOver } = detectRole(curves, role, taken);
     if (choice === undefined) {
-      if (role !== "depth") issues.push({ field: `${role}_curve`, message: missingMessage(curves, role, passedOver) });
+      if (role !== "depth" && !(optional as readonly CurveRole[]).includes(role)) {
+        issues.push({ field: `${role}_curve`, message: missingMessage(curves, role, passedOver) });
+      }
       continue;
     }
     chosen[role] = choice;
@@ -205,8 +214,8 @@ export const detectCurves = (curves: readonly CurveInfo[], overrides: CurveOverr
   if (issues.length > 0) throw new InputIssues(issues);
   return {
     vp: chosen.vp as SonicCurveChoice,
-    vs: chosen.vs as SonicCurveChoice,
-    rho: chosen.rho as DensityCurveChoice,
+    vs: chosen.vs as SonicCurveChoice | undefined,
+    rho: chosen.rho as DensityCurveChoice | undefined,
     depth: chosen.depth as DepthCurveChoice | undefined,
   };
 };

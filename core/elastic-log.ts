@@ -1,7 +1,9 @@
+import type { Correlation } from "./correlations/correlation.js";
+import { fillGaps, type FillMode } from "./correlations/fill-gaps.js";
 import { computeElasticSi } from "./elastic-kernel.js";
 import { densityToSi, sonicToMetresPerSecond, type DensityCurve, type SonicCurve } from "./input-screening.js";
 import type { PlausibilityLimits } from "./plausibility-limits.js";
-import { invalidatingMask } from "./qc-flags.js";
+import { flagBit, invalidatingMask } from "./qc-flags.js";
 import {
   DENSITY_UNITS,
   IMPEDANCE_UNITS,
@@ -11,6 +13,12 @@ import {
   type ModulusUnit,
   type VelocityUnit,
 } from "./units.js";
+
+/** Predict a missing input from Vp with an empirical correlation (`vs` kind in m/s, `density` kind in g/cm3). */
+export interface GapFill {
+  correlation: Correlation;
+  mode: FillMode;
+}
 
 export interface ElasticLogRequest {
   compressional: SonicCurve;
@@ -23,6 +31,17 @@ export interface ElasticLogRequest {
   modulusUnit: ModulusUnit;
   velocityUnit: VelocityUnit;
   impedanceUnit: ImpedanceUnit;
+  /** Gap filling, only when asked for: every filled sample is flagged estimated_vs or estimated_rho. */
+  fillShear?: GapFill;
+  fillDensity?: GapFill;
+}
+
+/** Columns in SI units (m/s, kg/m3, Pa), as inputs to empirical correlations; NaN where absent or invalid. */
+export interface ElasticColumnsForCorrelations {
+  vpMetresPerSecond: Float64Array;
+  densityKilogramsPerCubicMetre: Float64Array;
+  dynamicYoungsModulusPascals: Float64Array;
+  poissonsRatio: Float64Array;
 }
 
 /** Elastic properties of each sample in the requested units; NaN where the sample is invalid. */
@@ -41,27 +60,77 @@ export interface ElasticLog {
   lambdaRho: Float64Array;
   /** μρ in the modulus unit times g/cm3. */
   muRho: Float64Array;
-  /** Vp and Vs as used, in the velocity unit (NaN where absent or unusable). */
+  /** Vp and Vs as used (measured or filled), in the velocity unit (NaN where absent or unusable). */
   vp: Float64Array;
   vs: Float64Array;
   /** One bit mask per sample (see qc-flags). */
   flags: Uint32Array;
   /** Bits that made a sample invalid under this request's options. */
   invalidMask: number;
+  /** Samples whose Vs or density was predicted by a gap-filling correlation. */
+  filled: { vs: number; rho: number };
+  si: ElasticColumnsForCorrelations;
 }
 
-const divideInPlace = (column: Float64Array, divisor: number): Float64Array => {
-  if (divisor !== 1) for (let i = 0; i < column.length; i++) column[i] /= divisor;
-  return column;
+const ESTIMATED_VS = flagBit("estimated_vs");
+const ESTIMATED_RHO = flagBit("estimated_rho");
+const OUTSIDE_CALIBRATION = flagBit("outside_calibration");
+
+/** A copy divided by `divisor`, or the column itself when there is nothing to divide. */
+const divided = (column: Float64Array, divisor: number): Float64Array => {
+  if (divisor === 1) return column;
+  const out = new Float64Array(column.length);
+  for (let i = 0; i < column.length; i++) out[i] = column[i] / divisor;
+  return out;
 };
 
-/** Screens the inputs, computes every property and expresses it in the requested units. */
+/**
+ * Replaces unusable samples of an input (SI column `si`, screening bits `own`) by a correlation's prediction
+ * from Vp: a filled sample loses the input's screening bits and gains `estimatedBit`, and `outside_calibration`
+ * where the prediction extrapolates. `toSi` converts the correlation's output unit to SI.
+ */
+const fillInput = (
+  fill: GapFill,
+  si: Float64Array,
+  own: Uint32Array,
+  vp: Float64Array,
+  estimatedBit: number,
+  toSi: number,
+): { si: Float64Array; count: number } => {
+  const prediction = fill.correlation.evaluate({ vpMetresPerSecond: vp });
+  const predicted = toSi === 1 ? prediction.values : prediction.values.map((value) => value * toSi);
+  const result = fillGaps(si, predicted, fill.mode);
+  for (let i = 0; i < si.length; i++) {
+    if (result.filled[i] === 0) continue;
+    own[i] = estimatedBit | (prediction.outsideCalibration[i] === 1 ? OUTSIDE_CALIBRATION : 0);
+  }
+  return { si: result.values, count: result.count };
+};
+
+/** Screens the inputs, fills gaps when asked, computes every property and expresses it in the requested units. */
 export const computeElasticLog = (request: ElasticLogRequest): ElasticLog => {
   const length = request.compressional.values.length;
   const flags = new Uint32Array(length);
   const vp = sonicToMetresPerSecond(request.compressional, request.nullValue, flags);
-  const vs = sonicToMetresPerSecond(request.shear, request.nullValue, flags);
-  const rho = densityToSi(request.density, request.nullValue, flags);
+  let vs: Float64Array;
+  let rho: Float64Array;
+  const filled = { vs: 0, rho: 0 };
+  if (request.fillShear === undefined) vs = sonicToMetresPerSecond(request.shear, request.nullValue, flags);
+  else {
+    const own = new Uint32Array(length);
+    const result = fillInput(request.fillShear, sonicToMetresPerSecond(request.shear, request.nullValue, own), own, vp, ESTIMATED_VS, 1);
+    for (let i = 0; i < length; i++) flags[i] |= own[i];
+    vs = result.si;
+    filled.vs = result.count;
+  }
+  if (request.fillDensity === undefined) rho = densityToSi(request.density, request.nullValue, flags);
+  else {
+    const own = new Uint32Array(length);
+    const result = fillInput(request.fillDensity, densityToSi(request.density, request.nullValue, own), own, vp, ESTIMATED_RHO, DENSITY_UNITS["g/cm3"]);
+    for (let i = 0; i < length; i++) flags[i] |= own[i];
+    rho = result.si;
+    filled.rho = result.count;
+  }
   const invalidMask = invalidatingMask(request.keepNegativePoisson);
   const si = computeElasticSi(vp, vs, rho, flags, invalidMask, request.limits);
   const modulus = MODULUS_UNITS[request.modulusUnit];
@@ -70,20 +139,27 @@ export const computeElasticLog = (request: ElasticLogRequest): ElasticLog => {
   const velocity = VELOCITY_UNITS[request.velocityUnit];
   return {
     length,
-    youngsModulus: divideInPlace(si.youngsModulus, modulus),
+    youngsModulus: divided(si.youngsModulus, modulus),
     poissonsRatio: si.poissonsRatio,
-    shearModulus: divideInPlace(si.shearModulus, modulus),
-    bulkModulus: divideInPlace(si.bulkModulus, modulus),
-    lameLambda: divideInPlace(si.lameLambda, modulus),
-    pWaveModulus: divideInPlace(si.pWaveModulus, modulus),
+    shearModulus: divided(si.shearModulus, modulus),
+    bulkModulus: divided(si.bulkModulus, modulus),
+    lameLambda: divided(si.lameLambda, modulus),
+    pWaveModulus: divided(si.pWaveModulus, modulus),
     vpVsRatio: si.vpVsRatio,
-    pImpedance: divideInPlace(si.pImpedance, impedance),
-    sImpedance: divideInPlace(si.sImpedance, impedance),
-    lambdaRho: divideInPlace(si.lambdaRho, modulusDensity),
-    muRho: divideInPlace(si.muRho, modulusDensity),
-    vp: divideInPlace(vp, velocity),
-    vs: divideInPlace(vs, velocity),
+    pImpedance: divided(si.pImpedance, impedance),
+    sImpedance: divided(si.sImpedance, impedance),
+    lambdaRho: divided(si.lambdaRho, modulusDensity),
+    muRho: divided(si.muRho, modulusDensity),
+    vp: divided(vp, velocity),
+    vs: divided(vs, velocity),
     flags,
     invalidMask,
+    filled,
+    si: {
+      vpMetresPerSecond: vp,
+      densityKilogramsPerCubicMetre: rho,
+      dynamicYoungsModulusPascals: si.youngsModulus,
+      poissonsRatio: si.poissonsRatio,
+    },
   };
 };

@@ -17,4 +17,5 @@ export * from "./curve-detection.js";
 export * from "./zone-statistics.js";
 export * from "./percentile.js";
 export * from "./correlations/index.js";
+export * from "./derived-properties.js";
 export * from "./unique-mnemonics.js";

@@ -21,6 +21,9 @@ export const FLAG_CODES = [
   "vp_out_of_range",
   "vs_out_of_range",
   "vp_vs_high",
+  "estimated_vs",
+  "estimated_rho",
+  "outside_calibration",
 ] as const;
 export type FlagCode = (typeof FLAG_CODES)[number];
 
@@ -55,6 +58,18 @@ const MEANINGS: Record<FlagCode, [Severity, string]> = {
   vp_vs_high: [
     "suspect",
     "Vp/Vs above the configured maximum: unconsolidated sediment, or a shear arrival picked too late (Poisson's ratio near 0.5).",
+  ],
+  estimated_vs: [
+    "suspect",
+    "Vs was not measured here: it was predicted from Vp by the empirical correlation named in vs_from, and every value of this sample rests on that estimate.",
+  ],
+  estimated_rho: [
+    "suspect",
+    "Bulk density was not measured here: it was predicted from Vp by the empirical correlation named in rho_from, and every value of this sample rests on that estimate.",
+  ],
+  outside_calibration: [
+    "suspect",
+    "An input (or the prediction) of an applied empirical correlation lies outside the range of the data the correlation was fitted on; its value is kept but is an extrapolation.",
   ],
 };
 

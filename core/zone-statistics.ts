@@ -49,6 +49,25 @@ const checkZones = (zones: readonly Zone[]): void => {
   if (issues.length > 0) throw new InputIssues(issues);
 };
 
+/** For each zone, whether a depth belongs to it (the rule of `summariseZones`). */
+const zoneMembershipTests = (zones: readonly Zone[]): ((depth: number) => boolean)[] => {
+  const tops = new Set(zones.map((zone) => zone.top));
+  return zones.map(({ top, base }) => {
+    const baseIncluded = !tops.has(base);
+    return (d: number) => d >= top && (d < base || (d === base && baseIncluded));
+  });
+};
+
+/** For each zone, 1 for the samples whose depth lies in it (the rule of `summariseZones`), else 0. */
+export const zoneMembership = (depth: Float64Array, zones: readonly Zone[]): Uint8Array[] => {
+  checkZones(zones);
+  return zoneMembershipTests(zones).map((contains) => {
+    const members = new Uint8Array(depth.length);
+    for (let i = 0; i < depth.length; i++) if (contains(depth[i])) members[i] = 1;
+    return members;
+  });
+};
+
 const statistics = (column: Float64Array, members: Uint32Array, scratch: Float64Array): PropertyStatistics => {
   let valid = 0;
   let sum = 0;
@@ -97,17 +116,15 @@ export const summariseZones = (
     ...Object.fromEntries(namedProperties.map(([name, column]) => [`properties.${name}`, column])),
   });
   checkZones(zones);
-  const tops = new Set(zones.map((zone) => zone.top));
+  const contains = zoneMembershipTests(zones);
   const memberBuffer = new Uint32Array(depth.length);
   const scratch = new Float64Array(depth.length);
-  return zones.map(({ name, top, base }) => {
-    const baseIncluded = !tops.has(base);
+  return zones.map(({ name, top, base }, z) => {
     let count = 0;
     let valid = 0;
     let flagged = 0;
     for (let i = 0; i < depth.length; i++) {
-      const d = depth[i];
-      if (!(d >= top && (d < base || (d === base && baseIncluded)))) continue;
+      if (!contains[z](depth[i])) continue;
       memberBuffer[count++] = i;
       const mask = flags[i];
       if (mask !== 0) flagged++;

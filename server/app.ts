@@ -10,6 +10,7 @@ import {
 import { DEFAULT_CONFIG, type ServiceConfig } from "./config.js";
 import { transformObject } from "./openapi-components.js";
 import { installProblemHandlers } from "./plugins/problem-handlers.js";
+import correlationRoutes from "./routes/correlations.js";
 import elasticRoutes from "./routes/elastic.js";
 import healthRoutes from "./routes/health.js";
 import logsRoutes from "./routes/logs.js";
@@ -83,6 +84,7 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
       tags: [
         { name: "elastic", description: "Dynamic elastic properties and QC flags." },
         { name: "wells", description: "Whole wells: LAS 2.0 and CSV files in and out." },
+        { name: "correlations", description: "Published empirical correlations from dynamic to static properties and strength, with citations. Every value they yield is an estimate." },
         { name: "operations", description: "Probes for orchestrators and load balancers." },
         { name: "reference", description: "The contract and the problem types." },
       ],
@@ -96,6 +98,7 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
   await app.register(healthRoutes);
   await app.register(referenceRoutes);
   await app.register(elasticRoutes, { maxSamples: config.maxSamples });
+  await app.register(correlationRoutes);
   await app.register(logsRoutes, { maxSamples: config.maxSamples, fileBodyLimitBytes: config.fileBodyLimitBytes });
   return app;
 }

@@ -10,6 +10,7 @@ import {
   type SonicCurve,
   type VelocityUnit,
 } from "../core/index.js";
+import { gapFills } from "./derived-answer.js";
 import type { ElasticColumnsBody, ElasticPointQuery } from "./schemas/elastic.js";
 import { toPlausibilityLimits } from "./schemas/limits.js";
 
@@ -21,14 +22,18 @@ interface UnitChoice {
   impedance: ImpedanceUnit;
 }
 
-const sonic = (
-  velocity: Float64Array | undefined,
-  slowness: Float64Array | undefined,
-  units: UnitChoice,
-): SonicCurve =>
-  velocity !== undefined
-    ? { measure: "velocity", unit: units.velocity, values: velocity }
-    : { measure: "slowness", unit: units.slowness, values: slowness as Float64Array };
+/**
+ * A sonic curve from whichever of velocity or slowness was given; when neither was (shear predicted
+ * by vs_from), a column of NaN of the log's length, so every sample is filled.
+ */
+const sonic = (velocity: Float64Array | undefined, slowness: Float64Array | undefined, units: UnitChoice, length: number): SonicCurve => {
+  if (velocity !== undefined) return { measure: "velocity", unit: units.velocity, values: velocity };
+  if (slowness !== undefined) return { measure: "slowness", unit: units.slowness, values: slowness };
+  return { measure: "velocity", unit: units.velocity, values: new Float64Array(length).fill(NaN) };
+};
+
+const absentIfUndefined = (values: Float64Array | undefined, length: number): Float64Array =>
+  values ?? new Float64Array(length).fill(NaN);
 
 const column = (values: unknown[] | undefined, field: string): Float64Array | undefined =>
   values === undefined ? undefined : toFloat64Column(values, field);
@@ -46,15 +51,16 @@ export const pointRequest = (query: ElasticPointQuery): ElasticLogRequest => {
     impedance: query.impedance_unit,
   };
   return {
-    compressional: sonic(one(query.vp), one(query.dtc), units),
-    shear: sonic(one(query.vs), one(query.dts), units),
-    density: { unit: units.density, values: Float64Array.of(query.rho) },
+    compressional: sonic(one(query.vp), one(query.dtc), units, 1),
+    shear: sonic(one(query.vs), one(query.dts), units, 1),
+    density: { unit: units.density, values: absentIfUndefined(one(query.rho), 1) },
     nullValue: query.null_value,
     keepNegativePoisson: query.keep_negative_poisson,
     limits: withDefaultLimits(toPlausibilityLimits(query)),
     modulusUnit: units.modulus,
     velocityUnit: units.velocity,
     impedanceUnit: units.impedance,
+    ...gapFills(query, "query"),
   };
 };
 
@@ -80,18 +86,19 @@ export const columnsRequest = (body: ElasticColumnsBody): ColumnsRequest => {
     top: column(body.top, "top"),
     base: column(body.base, "base"),
   };
-  requireEqualLengths(columns);
+  const length = requireEqualLengths(columns);
   return {
     core: {
-      compressional: sonic(columns.vp, columns.dtc, body.units),
-      shear: sonic(columns.vs, columns.dts, body.units),
-      density: { unit: body.units.density, values: columns.rho as Float64Array },
+      compressional: sonic(columns.vp, columns.dtc, body.units, length),
+      shear: sonic(columns.vs, columns.dts, body.units, length),
+      density: { unit: body.units.density, values: absentIfUndefined(columns.rho, length) },
       nullValue: body.null_value,
       keepNegativePoisson: body.keep_negative_poisson,
       limits: withDefaultLimits(toPlausibilityLimits(body.limits)),
       modulusUnit: body.units.modulus,
       velocityUnit: body.units.velocity,
       impedanceUnit: body.units.impedance,
+      ...gapFills(body, "body"),
     },
     depth: columns.depth,
     top: columns.top,

@@ -1,4 +1,5 @@
-import { summariseZones, type Zone } from "../core/index.js";
+import { summariseZones, type DerivedColumn, type Zone } from "../core/index.js";
+import { CAUTION, derivedColumnsAnswer } from "./derived-answer.js";
 import { columnsAnswer, type UnitsChosen } from "./elastic-answer.js";
 import { propertyColumns } from "./output-properties.js";
 import { ProblemError } from "./problems.js";
@@ -15,7 +16,7 @@ export const zoneSummaries = (conversion: WellConversion, zones: readonly Zone[]
 const nullable = (value: string | undefined): string | null => (value === undefined || value === "" ? null : value);
 
 /** The JSON answer of `POST /v1/logs`: the columns of `/v1/elastic` plus how the file was read. */
-export const logsAnswer = (conversion: WellConversion, zones: readonly Zone[] | undefined) => {
+export const logsAnswer = (conversion: WellConversion, zones: readonly Zone[] | undefined, derived: Map<string, DerivedColumn> | undefined) => {
   const { file, request, curves } = conversion;
   const slowness = [curves.vp, curves.vs].find((choice) => choice?.measure === "slowness");
   const units: UnitsChosen & { depth: WellConversion["depthUnit"] } = {
@@ -41,9 +42,11 @@ export const logsAnswer = (conversion: WellConversion, zones: readonly Zone[] | 
       wrapped: file.format === "las" ? file.las.wrapped : null,
       null_value: conversion.nullValue,
     },
-    curves: curves as Required<Pick<typeof curves, "vp" | "vs" | "rho">> & Pick<typeof curves, "depth">,
+    curves: curves as Required<Pick<typeof curves, "vp">> & Omit<typeof curves, "vp">,
     input_curves: file.table.curves.map(({ mnemonic, unit, description }) => ({ mnemonic, unit, description })),
     warnings: conversion.warnings,
     ...(zones && { zones: zoneSummaries(conversion, zones) }),
+    ...((request.fillShear || request.fillDensity) && { filled: conversion.log.filled }),
+    ...(derived && { derived: derivedColumnsAnswer(derived), caution: CAUTION }),
   };
 };

@@ -10,6 +10,7 @@ import {
   type DepthUnit,
   type ElasticLog,
   type ElasticLogRequest,
+  type GapFill,
   type ImpedanceUnit,
   type ModulusUnit,
   type PlausibilityLimits,
@@ -31,6 +32,8 @@ export interface ConversionOptions {
   modulusUnit: ModulusUnit;
   velocityUnit: VelocityUnit;
   impedanceUnit: ImpedanceUnit;
+  fillShear?: GapFill;
+  fillDensity?: GapFill;
 }
 
 /** How one role was filled: which curve, read in which unit, and why. */
@@ -105,7 +108,8 @@ const sonic = (choice: RoleChoice, values: Float64Array): SonicCurve =>
 export const convertWell = (file: WellFile, options: ConversionOptions): WellConversion => {
   let mapping: CurveMapping;
   try {
-    mapping = detectCurves(file.table.curves, options.curves);
+    const optional = [...(options.fillShear ? ["vs" as const] : []), ...(options.fillDensity ? ["rho" as const] : [])];
+    mapping = detectCurves(file.table.curves, options.curves, optional);
   } catch (error) {
     if (!(error instanceof InputIssues)) throw error;
     throw new ProblemError(
@@ -116,27 +120,33 @@ export const convertWell = (file: WellFile, options: ConversionOptions): WellCon
   }
   const warnings: WellConversion["warnings"] = file.format === "las" ? [...file.las.warnings] : [];
   const vp = resolveRole("vp", mapping.vp, options.units.vp, warnings);
-  const vs = resolveRole("vs", mapping.vs, options.units.vs, warnings);
-  const rho = resolveRole("rho", mapping.rho, options.units.rho, warnings);
+  const vs = mapping.vs && resolveRole("vs", mapping.vs, options.units.vs, warnings);
+  const rho = mapping.rho && resolveRole("rho", mapping.rho, options.units.rho, warnings);
   const depth = mapping.depth && resolveRole("depth", mapping.depth, options.units.depth, warnings);
   const nullValue = options.nullValue ?? file.table.nullValue ?? DEFAULT_NULL_VALUE;
   const columns = file.table.columns;
+  const rows = columns[vp.index].length;
+  const absent = () => new Float64Array(rows).fill(NaN);
   const request: ElasticLogRequest = {
     compressional: sonic(vp, columns[vp.index]),
-    shear: sonic(vs, columns[vs.index]),
-    density: { unit: rho.unit as DensityUnit, values: columns[rho.index] },
+    shear: vs ? sonic(vs, columns[vs.index]) : { measure: "velocity", unit: "m/s", values: absent() },
+    density: rho ? { unit: rho.unit as DensityUnit, values: columns[rho.index] } : { unit: "g/cm3", values: absent() },
     nullValue,
     keepNegativePoisson: options.keepNegativePoisson,
     limits: options.limits,
     modulusUnit: options.modulusUnit,
     velocityUnit: options.velocityUnit,
     impedanceUnit: options.impedanceUnit,
+    fillShear: options.fillShear,
+    fillDensity: options.fillDensity,
   };
+  if (!vs) warnings.push({ message: `no shear curve: Vs of every sample is predicted by ${options.fillShear?.correlation.id}` });
+  if (!rho) warnings.push({ message: `no density curve: bulk density of every sample is predicted by ${options.fillDensity?.correlation.id}` });
   return {
     file,
     request,
     log: computeElasticLog(request),
-    curves: { vp, vs, rho, ...(depth && { depth }) },
+    curves: { vp, ...(vs && { vs }), ...(rho && { rho }), ...(depth && { depth }) },
     depth: depth && columns[depth.index],
     depthUnit: (depth?.unit as DepthUnit | undefined) ?? "m",
     nullValue,

@@ -1,11 +1,13 @@
 import {
   FLAGS,
+  type DerivedColumn,
   lasCurvesOf,
   writeCsv,
   writeLas,
   type LasCurveToWrite,
   type LasItemToWrite,
 } from "../core/index.js";
+import { CAUTION, citationText } from "./derived-answer.js";
 import { OUTPUT_PROPERTIES, QC_CURVE, type OutputUnits } from "./output-properties.js";
 import { SERVICE_VERSION } from "./version.js";
 import type { WellConversion } from "./well-conversion.js";
@@ -18,17 +20,29 @@ const outputUnits = (conversion: WellConversion): OutputUnits => ({
 
 const qcColumn = (conversion: WellConversion): Float64Array => Float64Array.from(conversion.log.flags);
 
-/** The input's columns, then every computed property and the QC bit mask, one row per input row (RFC 4180). */
-export const csvChunks = (conversion: WellConversion): Generator<string> => {
+/** Column name of a derived curve: EL_ and the correlation id in capitals, its dot an underscore (EL_UCS_MCNALLY1987). */
+export const derivedCurveName = (id: string): string => `EL_${id.replace(".", "_").toUpperCase()}`;
+
+const derivedList = (derived: Map<string, DerivedColumn> | undefined): DerivedColumn[] => [...(derived?.values() ?? [])];
+
+/** The input's columns, then every computed property, each derived estimate and the QC bit mask, one row per input row (RFC 4180). */
+export const csvChunks = (conversion: WellConversion, derived: Map<string, DerivedColumn> | undefined): Generator<string> => {
   const { table } = conversion.file;
   const units = outputUnits(conversion);
+  const estimates = derivedList(derived);
   return writeCsv({
     curves: [
       ...table.curves.map((curve) => ({ name: curve.mnemonic, unit: curve.unit })),
       ...OUTPUT_PROPERTIES.map((property) => ({ name: property.curve, unit: property.unit(units) })),
+      ...estimates.map((column) => ({ name: derivedCurveName(column.correlation.id), unit: column.correlation.outputUnit })),
       { name: QC_CURVE, unit: "" },
     ],
-    columns: [...table.columns, ...OUTPUT_PROPERTIES.map((property) => property.column(conversion.log)), qcColumn(conversion)],
+    columns: [
+      ...table.columns,
+      ...OUTPUT_PROPERTIES.map((property) => property.column(conversion.log)),
+      ...estimates.map((column) => column.values),
+      qcColumn(conversion),
+    ],
   });
 };
 
@@ -50,7 +64,8 @@ const optionItems = (conversion: WellConversion): LasItemToWrite[] => {
   const limits = request.limits;
   const source = (role: "vp" | "vs" | "rho") => {
     const choice = curves[role];
-    return choice ? `${choice.mnemonic} ${choice.unit}` : "";
+    const fill = role === "vs" ? request.fillShear : role === "rho" ? request.fillDensity : undefined;
+    return choice ? `${choice.mnemonic} ${choice.unit}` : `PREDICTED BY ${fill?.correlation.id}`;
   };
   return [
     { mnemonic: "EL_VERSION", value: SERVICE_VERSION, description: "ELASTILOG VERSION" },
@@ -90,7 +105,7 @@ const inputCurves = (conversion: WellConversion): LasCurveToWrite[] => {
  * LAS 2.0: the input's header sections and curves kept, the computed curves appended with units and
  * descriptions, the QC bit mask curve documented in ~Other, the options used in ~Parameter, the same NULL.
  */
-export const lasChunks = (conversion: WellConversion): Generator<string> => {
+export const lasChunks = (conversion: WellConversion, derived: Map<string, DerivedColumn> | undefined): Generator<string> => {
   const units = outputUnits(conversion);
   const computed: LasCurveToWrite[] = OUTPUT_PROPERTIES.map((property) => ({
     mnemonic: property.curve,
@@ -99,15 +114,25 @@ export const lasChunks = (conversion: WellConversion): Generator<string> => {
     values: property.column(conversion.log),
     format: COMPUTED_FORMAT,
   }));
+  const estimates: LasCurveToWrite[] = derivedList(derived).map(({ correlation, values }) => ({
+    mnemonic: derivedCurveName(correlation.id),
+    unit: correlation.outputUnit,
+    // LAS descriptions end the line and may not hold a colon (CWLS LAS 2.0, the colon delimits them).
+    description: `EMPIRICAL ${correlation.kind.toUpperCase()} ${citationText(correlation.citation).replaceAll("doi:", "doi ").replaceAll(":", " -")}`,
+    values,
+    format: COMPUTED_FORMAT,
+  }));
+  const caution = estimates.length === 0 ? [] : ["EL_ curves named after a correlation are empirical estimates. " + CAUTION];
   return writeLas({
     header: conversion.file.format === "las" ? conversion.file.las.sections : undefined,
     curves: [
       ...inputCurves(conversion),
       ...computed,
+      ...estimates,
       { mnemonic: QC_CURVE, unit: "", description: "QC FLAG BIT MASK (SEE ~OTHER)", values: qcColumn(conversion), format: { kind: "decimals", decimals: 0 } },
     ],
     nullValue: conversion.nullValue,
     parameters: optionItems(conversion),
-    otherLines: qcLegend(conversion),
+    otherLines: [...qcLegend(conversion), ...caution],
   });
 };

@@ -2,24 +2,24 @@ import type { InputIssue } from "../input-issues.js";
 import { defineCorrelation, type ResolvedOptions } from "./define-correlation.js";
 
 const OPTIONS = [
-  { name: "youngsModulusMinMpsi", unit: "Mpsi", defaultValue: 1, description: "Static Young's modulus of the most ductile rock (brittleness 0 on the modulus term)." },
-  { name: "youngsModulusMaxMpsi", unit: "Mpsi", defaultValue: 8, description: "Static Young's modulus of the most brittle rock (brittleness 100 on the modulus term)." },
-  { name: "poissonsRatioMin", unit: "1", defaultValue: 0.15, description: "Poisson's ratio of the most brittle rock (brittleness 100 on the ratio term)." },
-  { name: "poissonsRatioMax", unit: "1", defaultValue: 0.4, description: "Poisson's ratio of the most ductile rock (brittleness 0 on the ratio term)." },
+  { name: "e_min_mpsi", unit: "Mpsi", defaultValue: 1, description: "Static Young's modulus of the most ductile rock (brittleness 0 on the modulus term)." },
+  { name: "e_max_mpsi", unit: "Mpsi", defaultValue: 8, description: "Static Young's modulus of the most brittle rock (brittleness 100 on the modulus term)." },
+  { name: "nu_min", unit: "1", defaultValue: 0.15, description: "Poisson's ratio of the most brittle rock (brittleness 100 on the ratio term)." },
+  { name: "nu_max", unit: "1", defaultValue: 0.4, description: "Poisson's ratio of the most ductile rock (brittleness 0 on the ratio term)." },
 ] as const;
 
 const boundsOf = (o: ResolvedOptions) => ({
-  eMin: o.youngsModulusMinMpsi,
-  eMax: o.youngsModulusMaxMpsi,
-  nuMin: o.poissonsRatioMin,
-  nuMax: o.poissonsRatioMax,
+  eMin: o.e_min_mpsi,
+  eMax: o.e_max_mpsi,
+  nuMin: o.nu_min,
+  nuMax: o.nu_max,
 });
 
 const checkBounds = (o: ResolvedOptions): InputIssue[] => {
   const { eMin, eMax, nuMin, nuMax } = boundsOf(o);
   const issues: InputIssue[] = [];
-  if (!(eMin < eMax)) issues.push({ field: "youngsModulusMaxMpsi", message: `must exceed youngsModulusMinMpsi (${eMin})` });
-  if (!(nuMin < nuMax)) issues.push({ field: "poissonsRatioMax", message: `must exceed poissonsRatioMin (${nuMin})` });
+  if (!(eMin < eMax)) issues.push({ field: "e_max_mpsi", message: `must exceed e_min_mpsi (${eMin})` });
+  if (!(nuMin < nuMax)) issues.push({ field: "nu_max", message: `must exceed nu_min (${nuMin})` });
   return issues;
 };
 

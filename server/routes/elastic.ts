@@ -1,6 +1,8 @@
 import type { FastifyInstance } from "fastify";
 import type { ZodTypeProvider } from "fastify-type-provider-zod";
 import { computeElasticLog, summariseZones } from "../../core/index.js";
+import { CAUTION, derivedColumnsAnswer, derivedPointAnswer } from "../derived-answer.js";
+import { deriveProperties } from "../derived-request.js";
 import { columnsAnswer, pointAnswer } from "../elastic-answer.js";
 import { columnsRequest, intervalMidpoints, pointRequest } from "../elastic-request.js";
 import { propertyColumns } from "../output-properties.js";
@@ -45,13 +47,17 @@ export default async function elasticRoutes(instance: FastifyInstance, options: 
     async (request) => {
       const query = request.query;
       const core = pointRequest(query);
-      return pointAnswer(computeElasticLog(core), core, {
+      const log = computeElasticLog(core);
+      const ids = query.correlations?.split(",").map((id) => id.trim()).filter((id) => id !== "");
+      const derived = deriveProperties(log, { correlations: ids }, "query");
+      const answer = pointAnswer(log, core, {
         velocity: query.velocity_unit,
         slowness: query.slowness_unit,
         density: query.density_unit,
         modulus: query.modulus_unit,
         impedance: query.impedance_unit,
       });
+      return derived === undefined ? answer : { ...answer, derived: derivedPointAnswer(derived), caution: CAUTION };
     },
   );
 
@@ -77,10 +83,15 @@ export default async function elasticRoutes(instance: FastifyInstance, options: 
       }
       const parsed = columnsRequest(body);
       const log = computeElasticLog(parsed.core);
+      const depth = parsed.depth ?? (parsed.top && intervalMidpoints(parsed.top, parsed.base as Float64Array));
+      const derived = deriveProperties(log, { correlations: body.correlations, options: body.correlation_options, zones: body.zones, depth }, "body");
       const answer = columnsAnswer(log, parsed.core, body.units, parsed);
-      if (body.zones === undefined) return answer;
-      const depth = parsed.depth ?? intervalMidpoints(parsed.top as Float64Array, parsed.base as Float64Array);
-      return { ...answer, zones: summariseZones(depth, body.zones, propertyColumns(log), log.flags, log.invalidMask) };
+      return {
+        ...answer,
+        ...(body.zones && depth && { zones: summariseZones(depth, body.zones, propertyColumns(log), log.flags, log.invalidMask) }),
+        ...((parsed.core.fillShear || parsed.core.fillDensity) && { filled: log.filled }),
+        ...(derived && { derived: derivedColumnsAnswer(derived), caution: CAUTION }),
+      };
     },
   );
 }

@@ -4,6 +4,8 @@ import type { FastifyInstance, FastifyRequest } from "fastify";
 import type { ZodTypeProvider } from "fastify-type-provider-zod";
 import { z } from "zod";
 import { withDefaultLimits, type Zone } from "../../core/index.js";
+import { gapFills } from "../derived-answer.js";
+import { deriveProperties } from "../derived-request.js";
 import { logsAnswer } from "../logs-answer.js";
 import { negotiateMediaType } from "../media-negotiation.js";
 import { PROBLEM_MEDIA_TYPE, ProblemError } from "../problems.js";
@@ -25,6 +27,7 @@ export const RAW_FILE_TYPES = ["text/plain", "text/csv", "application/octet-stre
 
 const MEDIA_TYPES = { json: "application/json", csv: "text/csv", las: "application/x-las" } as const;
 type Format = keyof typeof MEDIA_TYPES;
+type ZoneWithList = Zone & { correlations?: string[] };
 
 const chooseFormat = (query: LogsQuery, accept: string | undefined): Format => {
   if (query.format !== undefined) return query.format;
@@ -42,7 +45,7 @@ const zonesFromQuery = (text: string | undefined): Zone[] | undefined => {
   return parsed.zones;
 };
 
-const zonesFromPart = (value: unknown): Zone[] => {
+const zonesFromPart = (value: unknown): ZoneWithList[] => {
   let json: unknown;
   try {
     json = JSON.parse(String(value));
@@ -61,9 +64,9 @@ const zonesFromPart = (value: unknown): Zone[] => {
 };
 
 /** The well file and zones of a multipart upload: exactly one file part, optionally a `zones` part. */
-const readMultipart = async (request: FastifyRequest, byteLimit: number): Promise<{ file: WellFile; zones?: Zone[] }> => {
+const readMultipart = async (request: FastifyRequest, byteLimit: number): Promise<{ file: WellFile; zones?: ZoneWithList[] }> => {
   let file: WellFile | undefined;
-  let zones: Zone[] | undefined;
+  let zones: ZoneWithList[] | undefined;
   for await (const part of request.parts()) {
     if (part.type === "file") {
       if (file !== undefined) throw new ProblemError("invalid-request", "Send one well file per request; this upload has several file parts.");
@@ -120,7 +123,7 @@ export default async function logsRoutes(instance: FastifyInstance, options: Log
     async (request, reply) => {
       const query = request.query;
       const format = chooseFormat(query, request.headers.accept);
-      let zones = zonesFromQuery(query.zones);
+      let zones: ZoneWithList[] | undefined = zonesFromQuery(query.zones);
       let file: WellFile;
       if (request.isMultipart()) {
         const upload = await readMultipart(request, options.fileBodyLimitBytes);
@@ -142,14 +145,17 @@ export default async function logsRoutes(instance: FastifyInstance, options: Log
         modulusUnit: query.modulus_unit,
         velocityUnit: query.velocity_unit,
         impedanceUnit: query.impedance_unit,
+        ...gapFills(query, "query"),
       });
-      if (format === "json") return logsAnswer(conversion, zones);
+      const ids = query.correlations?.split(",").map((id) => id.trim()).filter((id) => id !== "");
+      const derived = deriveProperties(conversion.log, { correlations: ids, zones, depth: conversion.depth }, "query");
+      if (format === "json") return logsAnswer(conversion, zones, derived);
       if (zones !== undefined) {
         throw new ProblemError("invalid-request", "Zone statistics are part of the JSON answer: ask for format=json, or leave zones out for CSV and LAS.", [
           { field: "query.zones", message: `not available with format ${format}` },
         ]);
       }
-      const chunks = Readable.from(format === "csv" ? csvChunks(conversion) : lasChunks(conversion));
+      const chunks = Readable.from(format === "csv" ? csvChunks(conversion, derived) : lasChunks(conversion, derived));
       // The type provider types reply bodies from the JSON schema; a stream of text is sent as it is.
       return reply.type(format === "csv" ? "text/csv; charset=utf-8; header=present" : "application/x-las; charset=utf-8").send(chunks as unknown as string);
     },

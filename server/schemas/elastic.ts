@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { flagSummary, pointFlag, sampleFlag, severity } from "./flags.js";
 import { limitFields, limitsUsed } from "./limits.js";
+import { correlationIds, correlationOptions, derivedColumns, derivedPoint, fillMode } from "./correlations.js";
 import { zoneList, zoneSummarySchema } from "./zones.js";
 import { densityUnit, depthUnit, impedanceUnit, modulusUnit, slownessUnit, unitsUsed, velocityUnit, DEFAULT_UNITS } from "./units.js";
 
@@ -17,7 +18,10 @@ const keepNegativePoisson = z
       "When true, samples with sqrt(4/3) < Vp/Vs < sqrt(2) (negative Poisson's ratio) keep their computed values, flagged vp_vs_below_sqrt2 as suspect instead of invalid. Accepts true/false (also 1/0, yes/no).",
   });
 
-const sonicChoice = (value: { vp?: unknown; dtc?: unknown; vs?: unknown; dts?: unknown }, ctx: z.RefinementCtx) => {
+type Inputs = { vp?: unknown; dtc?: unknown; vs?: unknown; dts?: unknown; rho?: unknown; vs_from?: string; rho_from?: string };
+
+/** Exactly one of vp/dtc; one of vs/dts unless vs_from predicts Vs; rho unless rho_from predicts it. */
+const inputChoice = (value: Inputs, ctx: z.RefinementCtx) => {
   for (const [velocity, slowness] of [
     ["vp", "dtc"],
     ["vs", "dts"],
@@ -25,14 +29,23 @@ const sonicChoice = (value: { vp?: unknown; dtc?: unknown; vs?: unknown; dts?: u
     const given = [velocity, slowness].filter((name) => value[name] !== undefined);
     if (given.length === 2) {
       ctx.addIssue({ code: "custom", path: [slowness], message: `give either ${velocity} or ${slowness}, not both` });
-    } else if (given.length === 0) {
+    } else if (given.length === 0 && !(velocity === "vs" && value.vs_from !== undefined)) {
       ctx.addIssue({
         code: "custom",
         path: [velocity],
-        message: `give ${velocity} (velocity) or ${slowness} (slowness); use the null value (-999.25) for a sample where it was not logged`,
+        message: `give ${velocity} (velocity) or ${slowness} (slowness); use the null value (-999.25) for a sample where it was not logged${velocity === "vs" ? ", or vs_from to predict Vs from Vp" : ""}`,
       });
     }
   }
+  if (value.rho === undefined && value.rho_from === undefined) {
+    ctx.addIssue({ code: "custom", path: ["rho"], message: "rho (bulk density) is required, or rho_from to predict it from Vp" });
+  }
+};
+
+const fillFields = {
+  vs_from: z.string().optional().meta({ description: "Id of a vs correlation (e.g. vs.castagna1985) that predicts Vs from Vp where Vs is absent; filled samples are flagged estimated_vs.", examples: ["vs.castagna1985"] }),
+  rho_from: z.string().optional().meta({ description: "Id of a density correlation (density.gardner1974) that predicts bulk density from Vp where it is absent; filled samples are flagged estimated_rho." }),
+  fill: fillMode.optional(),
 };
 
 export const elasticPointQuery = z
@@ -41,7 +54,7 @@ export const elasticPointQuery = z
     vs: pointValue("Shear velocity, in velocity_unit.", 1800),
     dtc: pointValue("Compressional slowness (DTC), in slowness_unit; replaces vp.", 95.25),
     dts: pointValue("Shear slowness (DTS), in slowness_unit; replaces vs.", 169.33),
-    rho: z.coerce.number().meta({ description: "Bulk density (RHOB), in density_unit.", examples: [2.45] }),
+    rho: z.coerce.number().optional().meta({ description: "Bulk density (RHOB), in density_unit.", examples: [2.45] }),
     velocity_unit: velocityUnit.default(DEFAULT_UNITS.velocity),
     slowness_unit: slownessUnit.default(DEFAULT_UNITS.slowness),
     density_unit: densityUnit.default(DEFAULT_UNITS.density),
@@ -49,9 +62,15 @@ export const elasticPointQuery = z
     impedance_unit: impedanceUnit.default(DEFAULT_UNITS.impedance),
     keep_negative_poisson: keepNegativePoisson,
     null_value: z.coerce.number().default(DEFAULT_NULL_VALUE).meta({ description: "An input equal to this is absent (flag missing)." }),
+    correlations: z
+      .string()
+      .max(2000)
+      .optional()
+      .meta({ description: "Comma-separated ids of empirical correlations to apply (GET /v1/correlations), e.g. static_e.lacy1997_sandstone,ucs.mcnally1987.", examples: ["static_e.lacy1997_sandstone,ucs.mcnally1987"] }),
+    ...fillFields,
     ...limitFields,
   })
-  .superRefine(sonicChoice);
+  .superRefine(inputChoice);
 
 const propertyValue = (description: string) => z.number().nullable().meta({ description });
 
@@ -72,6 +91,8 @@ export const elasticPointResponse = z
     vs: propertyValue("Shear velocity used (from vs or dts), in the velocity unit; null when unusable."),
     valid: z.boolean().meta({ description: "False when an invalid flag made the moduli null." }),
     flags: z.array(pointFlag),
+    derived: derivedPoint.optional(),
+    caution: z.string().optional().meta({ description: "Present whenever derived (empirical) values are." }),
     units: unitsUsed,
     limits: limitsUsed,
   })
@@ -107,16 +128,18 @@ export const elasticColumnsBody = z
     null_value: z.number().default(DEFAULT_NULL_VALUE).meta({ description: "A value equal to this is absent (flag missing). null inside arrays is absent too." }),
     keep_negative_poisson: z.boolean().default(false).meta({ description: keepNegativePoisson.description }),
     limits: z.strictObject(limitFields).prefault({}).meta({ description: "Overrides of the plausibility ranges (see LimitsUsed)." }),
+    correlations: correlationIds.optional(),
+    correlation_options: correlationOptions.optional(),
+    ...fillFields,
     zones: zoneList.optional().meta({
       description: "Formation intervals to summarise, in the depth unit; needs depth (or top and base, whose midpoints place each interval).",
     }),
   })
   .superRefine((body, ctx) => {
+    inputChoice(body, ctx);
     if (body.zones !== undefined && body.depth === undefined && body.top === undefined) {
       ctx.addIssue({ code: "custom", path: ["zones"], message: "zones need a depth column (or top and base) to place the samples" });
     }
-    sonicChoice(body, ctx);
-    if (body.rho === undefined) ctx.addIssue({ code: "custom", path: ["rho"], message: "rho (bulk density) is required" });
     if (body.depth !== undefined && (body.top !== undefined || body.base !== undefined)) {
       ctx.addIssue({ code: "custom", path: ["depth"], message: "give depth for samples or top and base for intervals, not both" });
     }
@@ -168,6 +191,9 @@ export const elasticColumnsResponse = z
     units: unitsUsed.extend({ depth: depthUnit }),
     limits: limitsUsed,
     zones: z.array(zoneSummarySchema).optional().meta({ description: "Per zone and property statistics, when zones were given." }),
+    derived: derivedColumns.optional(),
+    filled: z.object({ vs: z.int(), rho: z.int() }).optional().meta({ description: "Samples whose Vs or density was predicted (vs_from, rho_from)." }),
+    caution: z.string().optional().meta({ description: "Present whenever derived (empirical) values are." }),
   })
   .meta({ id: "ElasticColumns", description: "Dynamic elastic properties per sample, row-aligned with the input." });
 

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { fillMode } from "./correlations.js";
 import { elasticColumnsResponse } from "./elastic.js";
 import { limitFields } from "./limits.js";
 import { impedanceUnit, modulusUnit, velocityUnit, DEFAULT_UNITS } from "./units.js";
@@ -31,6 +32,14 @@ export const logsQuery = z.strictObject({
     .meta({
       description: "Zones to summarise, as name:top:base separated by ; in the depth unit of the file (e.g. Linnet_Sand:1522.4:1561.8;Sorrel_Shale:1561.8:1640.3). A multipart upload may instead send a `zones` part holding a JSON array of {name, top, base}.",
     }),
+  correlations: z
+    .string()
+    .max(2000)
+    .optional()
+    .meta({ description: "Comma-separated ids of empirical correlations to apply to every sample (GET /v1/correlations). Per-zone lists go in the zones part of a multipart upload." }),
+  vs_from: z.string().optional().meta({ description: "Id of a vs correlation predicting Vs from Vp where the shear log is absent (or has no curve at all); filled samples are flagged estimated_vs." }),
+  rho_from: z.string().optional().meta({ description: "Id of a density correlation predicting bulk density from Vp where the density log is absent; filled samples are flagged estimated_rho." }),
+  fill: fillMode.optional(),
   ...limitFields,
 });
 
@@ -63,8 +72,8 @@ export const logsJsonResponse = elasticColumnsResponse
       })
       .meta({ description: "Header facts of the well (LAS ~Well); null where the file gives none (always for CSV)." }),
     curves: z
-      .object({ vp: roleChoice, vs: roleChoice, rho: roleChoice, depth: roleChoice.optional() })
-      .meta({ description: "Which curve was used for what, and why." }),
+      .object({ vp: roleChoice, vs: roleChoice.optional(), rho: roleChoice.optional(), depth: roleChoice.optional() })
+      .meta({ description: "Which curve was used for what, and why (vs or rho absent when predicted for every sample)." }),
     input_curves: z.array(z.object({ mnemonic: z.string(), unit: z.string(), description: z.string() })),
     warnings: z.array(z.object({ line: z.int().optional(), message: z.string() })).meta({ description: "Things in the file worth knowing that did not stop the conversion." }),
     zones: z.array(zoneSummarySchema).optional(),

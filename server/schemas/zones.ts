@@ -5,6 +5,11 @@ export const zoneSchema = z
     name: z.string().min(1).max(200).meta({ examples: ["Linnet Sand"] }),
     top: z.number().meta({ description: "Shallower bound, in the depth unit of the request or file." }),
     base: z.number().meta({ description: "Deeper bound; must be greater than top." }),
+    correlations: z
+      .array(z.string().min(1).max(80))
+      .max(64)
+      .optional()
+      .meta({ description: "Correlations applied to this zone's samples only (lithology changes by formation); a static_e listed here feeds this zone's UCS and brittleness." }),
   })
   .meta({ id: "Zone", description: "A formation interval to summarise. A sample belongs to it when top <= depth < base (the deepest zone's base is inclusive when no other zone starts there)." });
 

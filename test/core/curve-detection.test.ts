@@ -32,7 +32,7 @@ describe("detectCurves by mnemonic and unit (common practice)", () => {
 
   it("matches mnemonics in any case and ignores the :2 uniqueness suffix", () => {
     const mapping = detectCurves(curves("depth ft", "dtco:2 us/ft", "dtsm us/ft", "rhoz g/cm3"));
-    expect([mapping.vp.mnemonic, mapping.vs.mnemonic, mapping.rho.mnemonic, mapping.depth?.mnemonic]).toEqual([
+    expect([mapping.vp.mnemonic, mapping.vs?.mnemonic, mapping.rho?.mnemonic, mapping.depth?.mnemonic]).toEqual([
       "dtco:2",
       "dtsm",
       "rhoz",
@@ -45,7 +45,7 @@ describe("detectCurves by mnemonic and unit (common practice)", () => {
     const mapping = detectCurves(curves("MD m", "VP km/s", "VS m/s", "DEN kg/m3"));
     expect(mapping.vp).toMatchObject({ measure: "velocity", unit: "km/s" });
     expect(mapping.vs).toMatchObject({ measure: "velocity", unit: "m/s" });
-    expect(mapping.rho.unit).toBe("kg/m3");
+    expect(mapping.rho?.unit).toBe("kg/m3");
   });
 
   it("lets the unit decide: a curve named VP in us/ft is a slowness, and the reason says so", () => {
@@ -65,7 +65,7 @@ describe("detectCurves by mnemonic and unit (common practice)", () => {
     expect(mapping.vp).toMatchObject({ measure: "slowness", unit: undefined, unitAsWritten: "" });
     expect(mapping.vp.reason).toContain("the file gives no unit, so it is taken as a slowness as its mnemonic says");
     expect(mapping.vs).toMatchObject({ measure: "velocity", unit: undefined, unitAsWritten: "furlongs" });
-    expect(mapping.vs.reason).toContain("unit furlongs is not one we recognise");
+    expect(mapping.vs?.reason).toContain("unit furlongs is not one we recognise");
     expect(mapping.rho).toMatchObject({ measure: "density", unit: undefined });
   });
 
@@ -83,7 +83,7 @@ describe("detectCurves by mnemonic and unit (common practice)", () => {
 
   it("passes over a matching mnemonic whose unit measures something else", () => {
     const mapping = detectCurves(curves("DEPT m", "RHOB us/ft", "RHOZ g/cm3", "DTC us/ft", "DTS us/ft"));
-    expect(mapping.rho.mnemonic).toBe("RHOZ");
+    expect(mapping.rho?.mnemonic).toBe("RHOZ");
   });
 
   it("keeps the mnemonic lists ordered best-known first, with no mnemonic in two roles", () => {
@@ -116,7 +116,7 @@ describe("detectCurves overrides", () => {
     });
     expect(mapping.vp).toMatchObject({ mnemonic: "P_SONIC", index: 2, measure: "slowness" });
     expect(mapping.vp.reason).toBe("named by vp_curve; unit us/ft read as us/ft");
-    expect(mapping.rho.mnemonic).toBe("BULK");
+    expect(mapping.rho?.mnemonic).toBe("BULK");
     expect(mapping.depth).toMatchObject({ mnemonic: "DEPTH_KB", unit: "ft" });
   });
 
@@ -127,7 +127,7 @@ describe("detectCurves overrides", () => {
 
   it("does not give a curve chosen by an override to another role", () => {
     const mapping = detectCurves(curves("DEPT m", "DTS us/ft", "DTSM us/ft", "RHOB g/cm3"), { vp: "DTS" });
-    expect(mapping.vs.mnemonic).toBe("DTSM");
+    expect(mapping.vs?.mnemonic).toBe("DTSM");
   });
 
   it("takes an unknown sonic curve with no unit as a slowness, the usual form of a sonic log", () => {
@@ -164,5 +164,19 @@ describe("detectCurves missing roles", () => {
     const error = issuesOf(() => detectCurves([]));
     expect(error.issues.map((issue) => issue.field)).toEqual(["vp_curve", "vs_curve", "rho_curve"]);
     expect(error.issues[0].message).toContain("the file has no curves");
+  });
+});
+
+describe("optional roles", () => {
+  it("a shear or density role declared optional may stay empty (Vs or ρ to be predicted from Vp); others still must be found", () => {
+    const curves = [
+      { mnemonic: "DEPT", unit: "M", description: "" },
+      { mnemonic: "DTC", unit: "US/F", description: "" },
+    ];
+    const mapping = detectCurves(curves, {}, ["vs", "rho"]);
+    expect(mapping.vp.mnemonic).toBe("DTC");
+    expect(mapping.vs).toBeUndefined();
+    expect(mapping.rho).toBeUndefined();
+    expect(() => detectCurves(curves, {}, ["vs"])).toThrow(/rho_curve/);
   });
 });

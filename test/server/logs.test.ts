@@ -42,7 +42,7 @@ describe("POST /v1/logs", () => {
       expect(body.depth).toHaveLength(DEMO_ROWS);
       expect(body.input_format).toBe("las");
       expect(body.curves.vp).toMatchObject({ mnemonic: "DTC", measure: "slowness", unit: "us/ft", unit_as_written: "US/F", unit_source: "file" });
-      expect(body.curves.vs.mnemonic).toBe("DTS");
+      expect(body.curves.vs?.mnemonic).toBe("DTS");
       expect(body.curves.rho).toMatchObject({ mnemonic: "RHOB", unit: "g/cm3" });
       expect(body.curves.depth?.mnemonic).toBe("DEPT");
       expect(body.well).toMatchObject({ name: "KESTREL FLATS 3", null_value: -999.25, las_version: "2.0" });

@@ -49,7 +49,7 @@ describe("brittleness.rickman2008", () => {
   });
 
   it("uses bounds given as options for the value and for the flags (Rickman et al. 2008: bounds are per play)", () => {
-    const options = { youngsModulusMinMpsi: 2, youngsModulusMaxMpsi: 10, poissonsRatioMin: 0.1, poissonsRatioMax: 0.35 };
+    const options = { e_min_mpsi: 2, e_max_mpsi: 10, nu_min: 0.1, nu_max: 0.35 };
     const { values, outsideCalibration } = rickman().evaluate(rock([[6, 0.225], [9, 0.2]]), options);
     // 50·(4/8 + 0.125/0.25) = 50 %
     expect(values[0]).toBeCloseTo(50, 10);
@@ -68,9 +68,9 @@ describe("brittleness.rickman2008", () => {
       }
       return [];
     };
-    expect(issuesOf({ youngsModulusMinMpsi: 8 })).toEqual(["youngsModulusMaxMpsi"]);
-    expect(issuesOf({ poissonsRatioMin: 0.5 })).toEqual(["poissonsRatioMax"]);
-    expect(issuesOf({ poissonsRatioMinimum: 0.1 })).toEqual(["poissonsRatioMinimum"]);
-    expect(issuesOf({ youngsModulusMaxMpsi: Number.POSITIVE_INFINITY })).toEqual(["youngsModulusMaxMpsi"]);
+    expect(issuesOf({ e_min_mpsi: 8 })).toEqual(["e_max_mpsi"]);
+    expect(issuesOf({ nu_min: 0.5 })).toEqual(["nu_max"]);
+    expect(issuesOf({ nu_minimum: 0.1 })).toEqual(["nu_minimum"]);
+    expect(issuesOf({ e_max_mpsi: Number.POSITIVE_INFINITY })).toEqual(["e_max_mpsi"]);
   });
 });

@@ -1,0 +1,49 @@
+import type { FastifyInstance } from "fastify";
+import type { ZodTypeProvider } from "fastify-type-provider-zod";
+import { z } from "zod";
+import { filterCorrelations, findCorrelation } from "../../core/index.js";
+import { CAUTION, correlationEntry } from "../derived-answer.js";
+import { ProblemError } from "../problems.js";
+import { correlationDescription, correlationFilter, correlationList } from "../schemas/correlations.js";
+import { commonProblemResponses } from "../schemas/problem.js";
+
+/** The catalogue of published empirical correlations, with their citations and calibration ranges. */
+export default async function correlationRoutes(instance: FastifyInstance): Promise<void> {
+  const app = instance.withTypeProvider<ZodTypeProvider>();
+
+  app.get(
+    "/v1/correlations",
+    {
+      schema: {
+        tags: ["correlations"],
+        summary: "The catalogue of empirical correlations (static Young's modulus, UCS, friction angle, Vs, density, brittleness).",
+        description: `Filter by kind and lithology. ${CAUTION}`,
+        querystring: correlationFilter,
+        response: { 200: correlationList, 400: commonProblemResponses[400] },
+      },
+    },
+    async (request) => {
+      const correlations = filterCorrelations(request.query).map(correlationEntry);
+      return { count: correlations.length, correlations, caution: CAUTION };
+    },
+  );
+
+  app.get(
+    "/v1/correlations/:id",
+    {
+      schema: {
+        tags: ["correlations"],
+        summary: "One correlation: formula, inputs and units, calibration ranges, citation and caveats.",
+        params: z.object({ id: z.string().meta({ examples: ["static_e.lacy1997_sandstone"] }) }),
+        response: { 200: correlationDescription, 404: commonProblemResponses[404] },
+      },
+    },
+    async (request) => {
+      const correlation = findCorrelation(request.params.id);
+      if (correlation === undefined) {
+        throw new ProblemError("not-found", `There is no correlation "${request.params.id}"; GET /v1/correlations lists the catalogue.`);
+      }
+      return correlationEntry(correlation);
+    },
+  );
+}

@@ -1,0 +1,81 @@
+import { z } from "zod";
+import { CORRELATION_KINDS, LITHOLOGIES } from "../../core/index.js";
+
+export const correlationKind = z.enum(CORRELATION_KINDS).meta({
+  id: "CorrelationKind",
+  description: "static_e: static Young's modulus (GPa); ucs: unconfined compressive strength (MPa); friction_angle (degrees); vs: shear velocity (m/s); density: bulk density (g/cm3); brittleness (%).",
+});
+export const lithology = z.enum(LITHOLOGIES).meta({ id: "Lithology", description: "Rock the correlation was fitted to." });
+
+const range = z.object({ min: z.number().nullable(), max: z.number().nullable() }).nullable();
+const citation = z
+  .object({ authors: z.string(), year: z.int(), title: z.string(), source: z.string(), doi: z.string().optional() })
+  .meta({ id: "Citation" });
+
+export const correlationDescription = z
+  .object({
+    id: z.string().meta({ examples: ["ucs.mcnally1987"] }),
+    kind: correlationKind,
+    lithology,
+    formula: z.string().meta({ description: "As published, in the source's units." }),
+    inputs: z.array(
+      z.object({
+        quantity: z.string().meta({ description: "What the service passes: vp (from the sonic), density, dynamic or static Young's modulus, Poisson's ratio." }),
+        symbol: z.string(),
+        unit: z.string().meta({ description: "Unit of the symbol in the published formula; the service converts to it." }),
+        calibration_range: range.meta({ description: "Range of the source's data for this input, in `unit`; null where none is published." }),
+      }),
+    ),
+    options: z.array(z.object({ name: z.string(), unit: z.string(), default_value: z.number(), description: z.string() })),
+    published_output_unit: z.string(),
+    output_unit: z.string().meta({ description: "Unit of the values the service returns." }),
+    output_range: range,
+    citation,
+    compiled_in: citation.nullable().meta({ description: "The compilation the formula was taken from, where it was." }),
+    caveats: z.string(),
+    empirical: z.literal(true),
+  })
+  .meta({ id: "Correlation", description: "A published empirical correlation. Every value it yields is an estimate, to be calibrated against core tests." });
+
+export const correlationList = z
+  .object({ count: z.int(), correlations: z.array(correlationDescription), caution: z.string() })
+  .meta({ id: "CorrelationCatalogue" });
+
+export const correlationFilter = z.strictObject({ kind: correlationKind.optional(), lithology: lithology.optional() });
+
+export const correlationIds = z
+  .array(z.string().min(1).max(80))
+  .max(64)
+  .meta({ description: "Ids of catalogue correlations to apply (GET /v1/correlations lists them), e.g. [\"static_e.lacy1997_sandstone\", \"ucs.mcnally1987\"]." });
+
+export const correlationOptions = z
+  .record(z.string(), z.record(z.string(), z.number()))
+  .meta({ description: "Options per correlation id, e.g. {\"brittleness.rickman2008\": {\"e_min_mpsi\": 1, \"e_max_mpsi\": 8}}." });
+
+export const fillMode = z
+  .enum(["nulls", "all"])
+  .meta({ description: "With vs_from or rho_from: fill only the samples where the input is absent or unusable (nulls, default), or replace the whole curve (all)." });
+
+const derivedBase = {
+  kind: correlationKind,
+  lithology,
+  unit: z.string(),
+  empirical: z.literal(true),
+  formula: z.string(),
+  source: z.string().meta({ description: "Full citation of the correlation." }),
+};
+
+export const derivedPoint = z
+  .record(z.string(), z.object({ ...derivedBase, value: z.number().nullable(), outside_calibration: z.boolean() }))
+  .meta({ id: "DerivedPoint", description: "Empirical estimates keyed by correlation id." });
+
+export const derivedColumns = z
+  .record(
+    z.string(),
+    z.object({
+      ...derivedBase,
+      values: z.array(z.number().nullable()).meta({ description: "One value per input row; null where an input is absent or the sample is outside every scope that lists this correlation." }),
+      outside_calibration: z.array(z.int()).meta({ description: "Rows whose inputs lie outside the source's calibration range (values kept, flagged)." }),
+    }),
+  )
+  .meta({ id: "DerivedColumns", description: "Empirical estimates keyed by correlation id, row-aligned with the input." });
