@@ -39,6 +39,18 @@ const FASTIFY_CODES: Record<string, ProblemSlug> = {
   FST_ERR_CTP_BODY_TOO_LARGE: "body-too-large",
   FST_ERR_CTP_INVALID_MEDIA_TYPE: "unsupported-media-type",
   FST_ERR_CTP_INVALID_CONTENT_LENGTH: "malformed-body",
+  FST_REQ_FILE_TOO_LARGE: "body-too-large",
+  FST_FILES_LIMIT: "invalid-request",
+  FST_PARTS_LIMIT: "invalid-request",
+  FST_FIELDS_LIMIT: "invalid-request",
+  FST_INVALID_MULTIPART_CONTENT_TYPE: "malformed-body",
+};
+
+/** Clearer words for @fastify/multipart's limits than its own terse messages. */
+const MULTIPART_DETAILS: Record<string, string> = {
+  FST_FILES_LIMIT: "The upload has too many file parts: send one well file (and optionally a zones part).",
+  FST_PARTS_LIMIT: "The upload has too many parts: send one well file and optionally a zones part.",
+  FST_FIELDS_LIMIT: "The upload has too many form fields: send one well file and optionally a zones part.",
 };
 
 /**
@@ -71,7 +83,7 @@ export const installProblemHandlers = (app: FastifyInstance, limits: { bodyLimit
     if (slug === "body-too-large") {
       return send(reply, slug, `The body is larger than this endpoint's limit of ${limits.bodyLimitBytes} bytes. Send fewer samples per request, or ask the operator to raise JSON_BODY_LIMIT_BYTES.`);
     }
-    if (slug !== undefined) return send(reply, slug, error.message);
+    if (slug !== undefined) return send(reply, slug, MULTIPART_DETAILS[error.code] ?? error.message);
     if (error.statusCode !== undefined && error.statusCode >= 400 && error.statusCode < 500) {
       request.log.info({ err: error }, "client error without a dedicated problem type");
       return send(reply, "invalid-request", error.message);

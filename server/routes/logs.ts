@@ -68,7 +68,9 @@ const readMultipart = async (request: FastifyRequest, byteLimit: number): Promis
   let file: WellFile | undefined;
   let zones: ZoneWithList[] | undefined;
   for await (const part of request.parts()) {
-    if (part.type === "file") {
+    if (part.type === "file" && part.fieldname === "zones") {
+      zones = zonesFromPart((await part.toBuffer()).toString("utf8"));
+    } else if (part.type === "file") {
       if (file !== undefined) throw new ProblemError("invalid-request", "Send one well file per request; this upload has several file parts.");
       file = await readWellFile(part.file, byteLimit);
       if (part.file.truncated) throw new ProblemError("body-too-large", `The file part is larger than the limit of ${byteLimit} bytes.`);
@@ -87,7 +89,8 @@ export default async function logsRoutes(instance: FastifyInstance, options: Log
   app.removeAllContentTypeParsers();
   app.addContentTypeParser(RAW_FILE_TYPES, (_request, payload, done) => done(null, payload));
   await app.register(multipart, {
-    limits: { fileSize: options.fileBodyLimitBytes, files: 1, fields: 4, parts: 5 },
+    // Two files at most: the well, and the zones sent as a file (curl -F zones=@zones.json).
+    limits: { fileSize: options.fileBodyLimitBytes, files: 2, fields: 4, parts: 6 },
   });
 
   app.post(

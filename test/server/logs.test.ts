@@ -80,6 +80,24 @@ describe("POST /v1/logs", () => {
     expect(answer.zones[0].properties.E.p50).toBeCloseTo((answer.E[0] + answer.E[1]) / 2, 12);
   });
 
+  it("takes the zones as a file part too (curl -F zones=@zones.json), and refuses a second well file", async () => {
+    const zones = JSON.stringify([{ name: "Upper", top: 1000, base: 1001 }]);
+    const asFile = multipartBody([
+      { name: "file", filename: "small.csv", content: SMALL_CSV },
+      { name: "zones", filename: "zones.json", content: zones },
+    ]);
+    const response = await upload(asFile.body, "", { "content-type": asFile.contentType });
+    expect(response.statusCode).toBe(200);
+    expect(response.json().zones[0].name).toBe("Upper");
+    const twoWells = multipartBody([
+      { name: "file", filename: "a.csv", content: SMALL_CSV },
+      { name: "other", filename: "b.csv", content: SMALL_CSV },
+    ]);
+    const refused = await upload(twoWells.body, "", { "content-type": twoWells.contentType });
+    expect(refused.statusCode).toBe(400);
+    expect(refused.json().detail).toContain("one well file");
+  });
+
   it("answers CSV (RFC 4180) for Accept: text/csv: the input columns, then EL_* columns with units, one record per input row", async () => {
     const response = await upload(SMALL_CSV, "", { "content-type": "text/csv", accept: "text/csv" });
     expect(response.statusCode).toBe(200);
