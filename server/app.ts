@@ -9,7 +9,12 @@ import {
 } from "fastify-type-provider-zod";
 import { DEFAULT_CONFIG, type ServiceConfig } from "./config.js";
 import { transformObject } from "./openapi-components.js";
+import { authentication } from "./plugins/authentication.js";
+import { crossOrigin } from "./plugins/cross-origin.js";
+import { loadShedding } from "./plugins/load-shedding.js";
+import { metrics } from "./plugins/metrics.js";
 import { installProblemHandlers } from "./plugins/problem-handlers.js";
+import { securityHeaders } from "./plugins/security-headers.js";
 import correlationRoutes from "./routes/correlations.js";
 import elasticRoutes from "./routes/elastic.js";
 import healthRoutes from "./routes/health.js";
@@ -60,6 +65,17 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
   }).withTypeProvider<ZodTypeProvider>();
   app.server.headersTimeout = config.headersTimeoutMs;
   app.decorate("shuttingDown", false);
+  // Order matters: CORS headers must reach the 503 and 401 answers of load shedding and authentication.
+  await app.register(securityHeaders);
+  await app.register(crossOrigin, { allowedOrigins: config.corsOrigins });
+  await app.register(loadShedding, {
+    maxEventLoopDelayMs: config.maxEventLoopDelayMs,
+    maxHeapUsedBytes: config.maxHeapUsedBytes,
+    maxRssBytes: config.maxRssBytes,
+    maxEventLoopUtilization: config.maxEventLoopUtilization,
+    retryAfterSeconds: config.retryAfterSeconds,
+  });
+  await app.register(authentication, { apiKeys: config.apiKeys, metricsRequireAuth: config.metricsRequireAuth });
   app.setValidatorCompiler(validatorCompiler);
   app.setSerializerCompiler(() => (data) => JSON.stringify(data));
   app.addHook("onSend", async (request, reply) => {
@@ -81,11 +97,16 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
         license: { name: "Proprietary", identifier: "LicenseRef-Proprietary" },
       },
       servers: [{ url: "http://127.0.0.1:8080", description: "Local service started with npm start" }],
+      components: {
+        securitySchemes: {
+          apiKey: { type: "http", scheme: "bearer", description: "Only when the service runs with API_KEYS: every /v1/* request needs Authorization: Bearer <key>." },
+        },
+      },
       tags: [
         { name: "elastic", description: "Dynamic elastic properties and QC flags." },
         { name: "wells", description: "Whole wells: LAS 2.0 and CSV files in and out." },
         { name: "correlations", description: "Published empirical correlations from dynamic to static properties and strength, with citations. Every value they yield is an estimate." },
-        { name: "operations", description: "Probes for orchestrators and load balancers." },
+        { name: "operations", description: "Probes for orchestrators and load balancers, and Prometheus metrics." },
         { name: "reference", description: "The contract and the problem types." },
       ],
     },
@@ -95,6 +116,7 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
   await app.register(swaggerUi, { routePrefix: "/docs", uiConfig: { docExpansion: "list", deepLinking: true } });
 
   installProblemHandlers(app, { bodyLimitBytes: config.jsonBodyLimitBytes });
+  await app.register(metrics);
   await app.register(healthRoutes);
   await app.register(referenceRoutes);
   await app.register(elasticRoutes, { maxSamples: config.maxSamples });

@@ -19,6 +19,20 @@ export interface ServiceConfig {
   connectionTimeoutMs: number;
   /** How long in-flight requests may run after SIGTERM/SIGINT, ms. */
   shutdownGraceMs: number;
+  /** Bearer keys accepted on /v1/*; empty: no authentication. */
+  apiKeys: string[];
+  /** Also require a key for /metrics. */
+  metricsRequireAuth: boolean;
+  /** Origins allowed by CORS; empty: CORS off. */
+  corsOrigins: string[];
+  /** Load shedding: refuse new work above these (0 disables each). */
+  maxEventLoopDelayMs: number;
+  maxHeapUsedBytes: number;
+  maxRssBytes: number;
+  /** Share of time the event loop is busy, 0 to 1. */
+  maxEventLoopUtilization: number;
+  /** Seconds a refused client is asked to wait. */
+  retryAfterSeconds: number;
 }
 
 export const DEFAULT_CONFIG: Readonly<ServiceConfig> = Object.freeze({
@@ -33,9 +47,19 @@ export const DEFAULT_CONFIG: Readonly<ServiceConfig> = Object.freeze({
   headersTimeoutMs: 20_000,
   connectionTimeoutMs: 130_000,
   shutdownGraceMs: 25_000,
+  apiKeys: [],
+  metricsRequireAuth: false,
+  corsOrigins: [],
+  maxEventLoopDelayMs: 1000,
+  maxHeapUsedBytes: 0,
+  maxRssBytes: 0,
+  maxEventLoopUtilization: 0,
+  retryAfterSeconds: 5,
 });
 
-const ENV_NAMES: Record<Exclude<keyof ServiceConfig, "host" | "logLevel">, string> = {
+type WholeNumberSetting = Exclude<keyof ServiceConfig, "host" | "logLevel" | "apiKeys" | "metricsRequireAuth" | "corsOrigins" | "maxEventLoopUtilization">;
+
+const ENV_NAMES: Record<WholeNumberSetting, string> = {
   port: "PORT",
   jsonBodyLimitBytes: "JSON_BODY_LIMIT_BYTES",
   fileBodyLimitBytes: "FILE_BODY_LIMIT_BYTES",
@@ -45,7 +69,21 @@ const ENV_NAMES: Record<Exclude<keyof ServiceConfig, "host" | "logLevel">, strin
   headersTimeoutMs: "HEADERS_TIMEOUT_MS",
   connectionTimeoutMs: "CONNECTION_TIMEOUT_MS",
   shutdownGraceMs: "SHUTDOWN_GRACE_MS",
+  maxEventLoopDelayMs: "MAX_EVENT_LOOP_DELAY_MS",
+  maxHeapUsedBytes: "MAX_HEAP_USED_BYTES",
+  maxRssBytes: "MAX_RSS_BYTES",
+  retryAfterSeconds: "RETRY_AFTER_SECONDS",
 };
+
+/** A comma-separated list, trimmed, without empty entries. */
+const list = (raw: string | undefined): string[] => (raw ?? "").split(",").map((item) => item.trim()).filter((item) => item !== "");
+
+const UNIT_WORDS: [RegExp, string][] = [
+  [/Ms$/, "milliseconds"],
+  [/Bytes$/, "bytes"],
+  [/Seconds$/, "seconds"],
+  [/^port$/, "port"],
+];
 
 /** Reads the configuration from environment variables, refusing values that are not whole non-negative numbers. */
 export const readConfig = (env: NodeJS.ProcessEnv = process.env): ServiceConfig => {
@@ -55,10 +93,21 @@ export const readConfig = (env: NodeJS.ProcessEnv = process.env): ServiceConfig 
     if (raw === undefined || raw === "") continue;
     const value = Number(raw);
     if (!Number.isSafeInteger(value) || value < 0) {
-      throw new Error(`${name} must be a whole number of ${key === "port" ? "port" : key.endsWith("Ms") ? "milliseconds" : key.endsWith("Bytes") ? "bytes" : "samples"}, got "${raw}"`);
+      const unit = UNIT_WORDS.find(([pattern]) => pattern.test(key))?.[1] ?? "samples";
+      throw new Error(`${name} must be a whole number of ${unit}, got "${raw}"`);
     }
     config[key] = value;
   }
+  if (env.MAX_EVENT_LOOP_UTILIZATION) {
+    const utilisation = Number(env.MAX_EVENT_LOOP_UTILIZATION);
+    if (!(utilisation >= 0 && utilisation <= 1)) {
+      throw new Error(`MAX_EVENT_LOOP_UTILIZATION must be a fraction from 0 to 1, got "${env.MAX_EVENT_LOOP_UTILIZATION}"`);
+    }
+    config.maxEventLoopUtilization = utilisation;
+  }
+  config.apiKeys = list(env.API_KEYS);
+  config.corsOrigins = list(env.CORS_ORIGINS);
+  config.metricsRequireAuth = /^(1|true|yes)$/i.test(env.METRICS_REQUIRE_AUTH ?? "");
   if (env.HOST) config.host = env.HOST;
   if (env.LOG_LEVEL) config.logLevel = env.LOG_LEVEL;
   return config;

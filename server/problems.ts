@@ -13,6 +13,11 @@ export const PROBLEM_KINDS = {
     title: "The body contains a forbidden key",
     fix: "Remove keys named __proto__ or constructor from the JSON body; they are refused to protect the service.",
   },
+  unauthorized: {
+    status: 401,
+    title: "Authentication is required",
+    fix: "Send a valid API key in the header `Authorization: Bearer <key>`; the operator of this service issues the keys.",
+  },
   "not-acceptable": {
     status: 406,
     title: "None of the accepted media types can be produced",
@@ -32,6 +37,11 @@ export const PROBLEM_KINDS = {
     status: 422,
     title: "The well file cannot be used as asked",
     fix: "Name the curves with vp_curve, vs_curve, rho_curve, depth_curve, or their units with vp_unit, vs_unit, rho_unit, depth_unit.",
+  },
+  overloaded: {
+    status: 503,
+    title: "The service is overloaded",
+    fix: "Wait the number of seconds in the Retry-After header, then send the request again; fewer samples per request help.",
   },
   "internal-error": { status: 500, title: "Internal error", fix: "This is a fault of the service, not of your request: report it with the request_id." },
 } as const;

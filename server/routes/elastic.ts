@@ -1,6 +1,6 @@
 import type { FastifyInstance } from "fastify";
 import type { ZodTypeProvider } from "fastify-type-provider-zod";
-import { computeElasticLog, summariseZones } from "../../core/index.js";
+import { computeElasticLog, summariseFlags, summariseZones } from "../../core/index.js";
 import { CAUTION, derivedColumnsAnswer, derivedPointAnswer } from "../derived-answer.js";
 import { deriveProperties } from "../derived-request.js";
 import { columnsAnswer, pointAnswer } from "../elastic-answer.js";
@@ -48,6 +48,7 @@ export default async function elasticRoutes(instance: FastifyInstance, options: 
       const query = request.query;
       const core = pointRequest(query);
       const log = computeElasticLog(core);
+      app.elasticMetrics.recordConversion(log.length, summariseFlags(log.flags, log.invalidMask).flags);
       const ids = query.correlations?.split(",").map((id) => id.trim()).filter((id) => id !== "");
       const derived = deriveProperties(log, { correlations: ids }, "query");
       const answer = pointAnswer(log, core, {
@@ -86,6 +87,7 @@ export default async function elasticRoutes(instance: FastifyInstance, options: 
       const depth = parsed.depth ?? (parsed.top && intervalMidpoints(parsed.top, parsed.base as Float64Array));
       const derived = deriveProperties(log, { correlations: body.correlations, options: body.correlation_options, zones: body.zones, depth }, "body");
       const answer = columnsAnswer(log, parsed.core, body.units, parsed);
+      app.elasticMetrics.recordConversion(answer.summary.count, answer.summary.flags);
       return {
         ...answer,
         ...(body.zones && depth && { zones: summariseZones(depth, body.zones, propertyColumns(log), log.flags, log.invalidMask) }),

@@ -3,7 +3,7 @@ import multipart from "@fastify/multipart";
 import type { FastifyInstance, FastifyRequest } from "fastify";
 import type { ZodTypeProvider } from "fastify-type-provider-zod";
 import { z } from "zod";
-import { withDefaultLimits, type Zone } from "../../core/index.js";
+import { summariseFlags, withDefaultLimits, type Zone } from "../../core/index.js";
 import { gapFills } from "../derived-answer.js";
 import { deriveProperties } from "../derived-request.js";
 import { logsAnswer } from "../logs-answer.js";
@@ -150,8 +150,10 @@ export default async function logsRoutes(instance: FastifyInstance, options: Log
         impedanceUnit: query.impedance_unit,
         ...gapFills(query, "query"),
       });
+      const { log } = conversion;
       const ids = query.correlations?.split(",").map((id) => id.trim()).filter((id) => id !== "");
       const derived = deriveProperties(conversion.log, { correlations: ids, zones, depth: conversion.depth }, "query");
+      app.elasticMetrics.recordConversion(log.length, summariseFlags(log.flags, log.invalidMask).flags);
       if (format === "json") return logsAnswer(conversion, zones, derived);
       if (zones !== undefined) {
         throw new ProblemError("invalid-request", "Zone statistics are part of the JSON answer: ask for format=json, or leave zones out for CSV and LAS.", [

@@ -23,9 +23,11 @@ const problemResponse = (description: string) => ({
 /** The error answers every route may give, for the OpenAPI document. */
 export const commonProblemResponses = {
   400: problemResponse("The request is not valid: the `errors` list names each bad field and row."),
+  401: problemResponse("An API key is required (only when the service runs with API_KEYS): send Authorization: Bearer <key>."),
   404: problemResponse("No such path."),
   406: problemResponse("None of the media types in Accept can be produced."),
   413: problemResponse("The body, or the number of samples, is over the limit."),
   415: problemResponse("The body's content type is not accepted here."),
   500: problemResponse("A fault of the service (never caused by input); quote request_id when reporting it."),
+  503: problemResponse("The service is overloaded or shutting down; retry after the seconds in Retry-After."),
 } as const;

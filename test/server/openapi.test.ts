@@ -24,7 +24,7 @@ describe("openapi.yaml", () => {
   it("describes every endpoint, unit option, flag code, and error response with problem+json", () => {
     const document = parse(committed);
     expect(Object.keys(document.paths).sort()).toEqual(
-      ["/livez", "/readyz", "/openapi.yaml", "/openapi.json", "/problems/{slug}", "/v1/elastic", "/v1/logs", "/v1/correlations", "/v1/correlations/{id}"].sort(),
+      ["/livez", "/readyz", "/openapi.yaml", "/openapi.json", "/problems/{slug}", "/v1/elastic", "/v1/logs", "/v1/correlations", "/v1/correlations/{id}", "/metrics"].sort(),
     );
     const text = JSON.stringify(document);
     for (const code of FLAG_CODES) expect(text).toContain(code);
