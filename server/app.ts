@@ -14,6 +14,7 @@ import { crossOrigin } from "./plugins/cross-origin.js";
 import { loadShedding } from "./plugins/load-shedding.js";
 import { metrics } from "./plugins/metrics.js";
 import { installProblemHandlers } from "./plugins/problem-handlers.js";
+import { trackRouteMethods } from "./plugins/route-methods.js";
 import { securityHeaders } from "./plugins/security-headers.js";
 import correlationRoutes from "./routes/correlations.js";
 import elasticRoutes from "./routes/elastic.js";
@@ -76,6 +77,7 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
     retryAfterSeconds: config.retryAfterSeconds,
   });
   await app.register(authentication, { apiKeys: config.apiKeys, metricsRequireAuth: config.metricsRequireAuth });
+  const methodsOf = trackRouteMethods(app);
   app.setValidatorCompiler(validatorCompiler);
   app.setSerializerCompiler(() => (data) => JSON.stringify(data));
   app.addHook("onSend", async (request, reply) => {
@@ -115,7 +117,7 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
   });
   await app.register(swaggerUi, { routePrefix: "/docs", uiConfig: { docExpansion: "list", deepLinking: true } });
 
-  installProblemHandlers(app, { bodyLimitBytes: config.jsonBodyLimitBytes });
+  installProblemHandlers(app, { bodyLimitBytes: config.jsonBodyLimitBytes }, methodsOf);
   await app.register(metrics);
   await app.register(healthRoutes);
   await app.register(referenceRoutes);

@@ -57,7 +57,11 @@ const MULTIPART_DETAILS: Record<string, string> = {
  * One error handler and one not-found handler for the whole app: every failure becomes an RFC 9457
  * problem document, and nothing internal (stack, file paths) is ever sent.
  */
-export const installProblemHandlers = (app: FastifyInstance, limits: { bodyLimitBytes: number }): void => {
+export const installProblemHandlers = (
+  app: FastifyInstance,
+  limits: { bodyLimitBytes: number },
+  methodsOf: (path: string) => string[] = () => [],
+): void => {
   app.setErrorHandler((error: FastifyError, request: FastifyRequest, reply: FastifyReply) => {
     if (isProblemError(error)) return send(reply, error.slug, error.detail, error.errors, error.headers);
     if (hasZodFastifySchemaValidationErrors(error)) {
@@ -92,7 +96,14 @@ export const installProblemHandlers = (app: FastifyInstance, limits: { bodyLimit
     return send(reply, "internal-error", `The service failed to answer this request; quote request_id ${request.id} when reporting it.`);
   });
 
-  app.setNotFoundHandler((request, reply) =>
-    send(reply, "not-found", `There is no ${request.method} ${request.url.split("?")[0]}. The endpoints are listed at /docs and /openapi.yaml.`),
-  );
+  app.setNotFoundHandler((request, reply) => {
+    const path = request.url.split("?")[0];
+    const allowed = methodsOf(path);
+    if (allowed.length > 0) {
+      return send(reply, "method-not-allowed", `${path} does not take ${request.method}; it takes ${allowed.join(", ")}.`, undefined, {
+        allow: allowed.join(", "),
+      });
+    }
+    return send(reply, "not-found", `There is no ${request.method} ${path}. The endpoints are listed at /docs and /openapi.yaml.`);
+  });
 };

@@ -54,3 +54,16 @@ describe("problem details (RFC 9457)", () => {
     await fresh.close();
   });
 });
+
+describe("405 Method Not Allowed (RFC 9110 §15.5.6)", () => {
+  it("a known path with another method is a 405 problem with an Allow header; an unknown path stays 404", async () => {
+    const app = await build();
+    const wrong = await app.inject({ method: "DELETE", url: "/v1/elastic" });
+    expect(wrong.statusCode).toBe(405);
+    expect(wrong.headers.allow).toBe("GET, HEAD, POST");
+    expect(wrong.json()).toMatchObject({ type: "/problems/method-not-allowed", status: 405 });
+    const parametric = await app.inject({ method: "POST", url: "/v1/correlations/ucs.mcnally1987" });
+    expect(parametric.statusCode).toBe(405);
+    expect((await app.inject({ method: "DELETE", url: "/v1/nothing" })).statusCode).toBe(404);
+  });
+});
