@@ -7,6 +7,7 @@ import {
   validatorCompiler,
   type ZodTypeProvider,
 } from "fastify-type-provider-zod";
+import { AnswerPool } from "./answer-pool.js";
 import { DEFAULT_CONFIG, type ServiceConfig } from "./config.js";
 import { transformObject } from "./openapi-components.js";
 import { authentication } from "./plugins/authentication.js";
@@ -27,6 +28,8 @@ declare module "fastify" {
   interface FastifyInstance {
     /** Set when a shutdown starts; /readyz then answers 503. */
     shuttingDown: boolean;
+    /** Worker threads for large answers. */
+    answerPool: AnswerPool;
   }
 }
 
@@ -66,6 +69,8 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
   }).withTypeProvider<ZodTypeProvider>();
   app.server.headersTimeout = config.headersTimeoutMs;
   app.decorate("shuttingDown", false);
+  app.decorate("answerPool", new AnswerPool(config.workerThreads));
+  app.addHook("onClose", async () => app.answerPool.close());
   // Order matters: CORS headers must reach the 503 and 401 answers of load shedding and authentication.
   await app.register(securityHeaders);
   await app.register(crossOrigin, { allowedOrigins: config.corsOrigins });

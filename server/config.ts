@@ -1,3 +1,5 @@
+import { availableParallelism } from "node:os";
+
 /** Settings read once from the environment; every limit has a documented default (README, "Limits"). */
 export interface ServiceConfig {
   port: number;
@@ -33,6 +35,8 @@ export interface ServiceConfig {
   maxEventLoopUtilization: number;
   /** Seconds a refused client is asked to wait. */
   retryAfterSeconds: number;
+  /** Worker threads for large answers (parsing, computing and writing); default: one per CPU. */
+  workerThreads: number;
 }
 
 export const DEFAULT_CONFIG: Readonly<ServiceConfig> = Object.freeze({
@@ -55,6 +59,7 @@ export const DEFAULT_CONFIG: Readonly<ServiceConfig> = Object.freeze({
   maxRssBytes: 0,
   maxEventLoopUtilization: 0,
   retryAfterSeconds: 5,
+  workerThreads: Math.max(1, availableParallelism()),
 });
 
 type WholeNumberSetting = Exclude<keyof ServiceConfig, "host" | "logLevel" | "apiKeys" | "metricsRequireAuth" | "corsOrigins" | "maxEventLoopUtilization">;
@@ -73,6 +78,7 @@ const ENV_NAMES: Record<WholeNumberSetting, string> = {
   maxHeapUsedBytes: "MAX_HEAP_USED_BYTES",
   maxRssBytes: "MAX_RSS_BYTES",
   retryAfterSeconds: "RETRY_AFTER_SECONDS",
+  workerThreads: "WORKER_THREADS",
 };
 
 /** A comma-separated list, trimmed, without empty entries. */
@@ -83,6 +89,7 @@ const UNIT_WORDS: [RegExp, string][] = [
   [/Bytes$/, "bytes"],
   [/Seconds$/, "seconds"],
   [/^port$/, "port"],
+  [/Threads$/, "threads"],
 ];
 
 /** Reads the configuration from environment variables, refusing values that are not whole non-negative numbers. */

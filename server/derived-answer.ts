@@ -73,7 +73,7 @@ export const derivedColumnsAnswer = (derived: Map<string, DerivedColumn>) =>
     [...derived].map(([id, column]) => {
       const outside: number[] = [];
       column.outsideCalibration.forEach((flag, i) => flag === 1 && outside.push(i));
-      return [id, { ...base(column.correlation), values: Array.from(column.values), outside_calibration: outside }];
+      return [id, { ...base(column.correlation), values: column.values, outside_calibration: outside }];
     }),
   );
 

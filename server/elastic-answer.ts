@@ -22,8 +22,6 @@ const MEANING = new Map(FLAGS.map((flag) => [flag.code, flag.meaning]));
 /** JSON has no NaN: a NaN becomes null (JSON.stringify does the same for array elements). */
 const nullable = (value: number): number | null => (Number.isNaN(value) ? null : value);
 
-/** A plain array of a column; JSON.stringify writes its NaNs as null without a second pass. */
-const plain = (column: Float64Array): number[] => Array.from(column);
 
 const format = (value: number): string => String(Number(value.toPrecision(6)));
 
@@ -101,7 +99,10 @@ const sampleFlags = (log: ElasticLog) => {
   return list;
 };
 
-/** The answer of `POST /v1/elastic`: columns of the input's length, flags, legend, summary, units and limits. */
+/**
+ * The answer of `POST /v1/elastic`: columns of the input's length (as Float64Arrays, written to JSON by
+ * `server/json-answer.ts`, NaN as null), flags, legend, summary, units and limits.
+ */
 export const columnsAnswer = (
   log: ElasticLog,
   request: ElasticLogRequest,
@@ -117,10 +118,10 @@ export const columnsAnswer = (
   );
   return {
     count: log.length,
-    ...(echo.depth && { depth: plain(echo.depth) }),
-    ...(echo.top && { top: plain(echo.top) }),
-    ...(echo.base && { base: plain(echo.base) }),
-    ...(Object.fromEntries(OUTPUT_PROPERTIES.map((property) => [property.key, plain(property.column(log))])) as Record<PropertyKey, number[]>),
+    ...(echo.depth && { depth: echo.depth }),
+    ...(echo.top && { top: echo.top }),
+    ...(echo.base && { base: echo.base }),
+    ...(Object.fromEntries(OUTPUT_PROPERTIES.map((property) => [property.key, property.column(log)])) as Record<PropertyKey, Float64Array>),
     flags: sampleFlags(log),
     flag_legend: legend,
     summary,

@@ -103,3 +103,21 @@ export const problemDocument = (
     ...(extra.errors === undefined ? {} : { errors: extra.errors }),
   };
 };
+
+/** The 400 problem for a list of bad fields, worded the same wherever the fields were checked. */
+export const invalidFields = (errors: ProblemFieldError[]): ProblemError =>
+  new ProblemError(
+    "invalid-request",
+    `The request has ${errors.length} invalid field${errors.length === 1 ? "" : "s"}: ${errors.map((e) => `${e.field} (${e.message})`).join("; ")}.`,
+    errors,
+  );
+
+/** The 400 problem for data that core refused (`InputIssues`), with each field under `prefix` (`body`, `query`). */
+export const unusableData = (message: string, issues: readonly { field: string; index?: number; message: string }[], prefix: string): ProblemError =>
+  new ProblemError(
+    "invalid-request",
+    `The request's data cannot be used: ${message}.`,
+    issues.map((issue) => ({ ...issue, field: `${prefix}.${issue.field}` })),
+  );
+
+export const UNKNOWN_FIELD_MESSAGE = "unknown field; see /openapi.yaml for the accepted fields (names are lower case)";

@@ -1,44 +1,9 @@
 import type { FastifyInstance } from "fastify";
-import secureJson from "secure-json-parse";
-import { ProblemError } from "../problems.js";
-
-/** Line and column (1-based) of a character offset, so a script author can find the mistake. */
-const lineAndColumn = (text: string, offset: number): string => {
-  let line = 1;
-  let lineStart = 0;
-  for (let i = text.indexOf("\n"); i !== -1 && i < offset; i = text.indexOf("\n", i + 1)) {
-    line++;
-    lineStart = i + 1;
-  }
-  return `line ${line}, column ${offset - lineStart + 1}`;
-};
 
 /**
- * Parses JSON bodies like Fastify's own parser (secure-json-parse, refusing `__proto__` and
- * `constructor` keys), but keeps the reason: Fastify's default parser replaces every syntax error
- * with one generic message.
+ * Takes JSON bodies as raw bytes: the route parses and validates them itself, on a worker thread when they
+ * are large, so a million-sample body never blocks the event loop (see server/elastic-columns.ts).
  */
-export const installJsonBodyParser = (app: FastifyInstance): void => {
-  app.addContentTypeParser("application/json", { parseAs: "string" }, (_request, body, done) => {
-    const text = body as string;
-    if (text.length === 0) {
-      done(new ProblemError("malformed-body", "The body is empty; send a JSON object (see /openapi.yaml)."), undefined);
-      return;
-    }
-    try {
-      done(null, secureJson.parse(text, undefined, { protoAction: "error", constructorAction: "error" }));
-    } catch (error) {
-      const message = (error as Error).message;
-      if (/forbidden prototype property/i.test(message)) {
-        done(
-          new ProblemError("forbidden-key", "The JSON body contains a key named __proto__ or constructor, which is refused; remove it."),
-          undefined,
-        );
-        return;
-      }
-      const position = /position (\d+)/.exec(message);
-      const where = position ? ` (at ${lineAndColumn(text, Number(position[1]))})` : "";
-      done(new ProblemError("malformed-body", `The body is not valid JSON${where}: ${message}.`), undefined);
-    }
-  });
+export const installRawJsonBodyParser = (app: FastifyInstance): void => {
+  app.addContentTypeParser("application/json", { parseAs: "buffer" }, (_request, body, done) => done(null, body));
 };

@@ -3,7 +3,10 @@ import { hasZodFastifySchemaValidationErrors } from "fastify-type-provider-zod";
 import { isInputIssues, isWellFileError } from "../../core/index.js";
 import {
   PROBLEM_MEDIA_TYPE,
+  UNKNOWN_FIELD_MESSAGE,
+  invalidFields,
   isProblemError,
+  unusableData,
   problemDocument,
   type ProblemFieldError,
   type ProblemSlug,
@@ -30,7 +33,7 @@ const validationErrors = (error: FastifyError): ProblemFieldError[] => {
     const keys = (issue.params as { keys?: string[] }).keys;
     return keys === undefined
       ? [{ field: path.join("."), message: issue.message ?? "is not valid" }]
-      : keys.map((key) => ({ field: [...path, key].join("."), message: "unknown field; see /openapi.yaml for the accepted fields (names are lower case)" }));
+      : keys.map((key) => ({ field: [...path, key].join("."), message: UNKNOWN_FIELD_MESSAGE }));
   });
 };
 
@@ -65,8 +68,8 @@ export const installProblemHandlers = (
   app.setErrorHandler((error: FastifyError, request: FastifyRequest, reply: FastifyReply) => {
     if (isProblemError(error)) return send(reply, error.slug, error.detail, error.errors, error.headers);
     if (hasZodFastifySchemaValidationErrors(error)) {
-      const errors = validationErrors(error);
-      return send(reply, "invalid-request", `The request has ${errors.length} invalid field${errors.length === 1 ? "" : "s"}: ${errors.map((e) => `${e.field} (${e.message})`).join("; ")}.`, errors);
+      const problem = invalidFields(validationErrors(error));
+      return send(reply, problem.slug, problem.detail, problem.errors);
     }
     // Checked on `unknown`: a FastifyError fits the WellFileError shape, which would defeat the type guard.
     const failure: unknown = error;
@@ -75,9 +78,9 @@ export const installProblemHandlers = (
         { field: "body", ...(failure.line === undefined ? {} : { line: failure.line }), message: `${failure.code}: ${failure.message}` },
       ]);
     }
-    if (isInputIssues(error)) {
-      const errors = error.issues.map((issue) => ({ ...issue, field: `body.${issue.field}` }));
-      return send(reply, "invalid-request", `The request's data cannot be used: ${error.message}.`, errors);
+    if (isInputIssues(failure)) {
+      const problem = unusableData(failure.message, failure.issues, "body");
+      return send(reply, problem.slug, problem.detail, problem.errors);
     }
     const slug = error.code === undefined ? undefined : FASTIFY_CODES[error.code];
     if (slug === "unsupported-media-type") {

@@ -1,12 +1,14 @@
 import type { FastifyInstance } from "fastify";
-import type { ZodTypeProvider } from "fastify-type-provider-zod";
+import { validatorCompiler, type ZodTypeProvider } from "fastify-type-provider-zod";
 import { computeElasticLog, summariseFlags, summariseZones } from "../../core/index.js";
 import { CAUTION, derivedColumnsAnswer, derivedPointAnswer } from "../derived-answer.js";
 import { deriveProperties } from "../derived-request.js";
 import { columnsAnswer, pointAnswer } from "../elastic-answer.js";
 import { columnsRequest, intervalMidpoints, pointRequest } from "../elastic-request.js";
 import { propertyColumns } from "../output-properties.js";
-import { installJsonBodyParser } from "../plugins/json-body.js";
+import { installRawJsonBodyParser } from "../plugins/json-body.js";
+import { sendAnswer } from "../answer-pool.js";
+import { prepareColumnsAnswer } from "../elastic-columns.js";
 import { ProblemError } from "../problems.js";
 import {
   elasticColumnsBody,
@@ -20,6 +22,9 @@ export interface ElasticRouteOptions {
   maxSamples: number;
 }
 
+/** Bodies up to this size are parsed and computed on the event loop (about 10,000 samples); larger ones on a worker. */
+const INLINE_BODY_BYTES = 512 * 1024;
+
 const DESCRIPTION = [
   "Dynamic elastic properties from sonic velocities or slownesses and bulk density, with exact isotropic relations",
   "(G = rho*Vs^2, M = rho*Vp^2, lambda = M - 2G, K = M - 4G/3, nu = (Vp^2 - 2Vs^2)/(2(Vp^2 - Vs^2)), E = 2G(1 + nu)).",
@@ -31,7 +36,7 @@ export default async function elasticRoutes(instance: FastifyInstance, options: 
   const app = instance.withTypeProvider<ZodTypeProvider>();
   // Content-type parsers are encapsulated per plugin: here only JSON is accepted, anything else is a 415.
   app.removeAllContentTypeParsers();
-  installJsonBodyParser(app);
+  installRawJsonBodyParser(app);
 
   app.get(
     "/v1/elastic",
@@ -72,28 +77,16 @@ export default async function elasticRoutes(instance: FastifyInstance, options: 
         body: elasticColumnsBody,
         response: { 200: elasticColumnsResponse, ...commonProblemResponses },
       },
+      // The body schema documents the contract; the body is validated with it in prepareColumnsAnswer, on a
+      // worker thread when large, so a big body is parsed and checked off the event loop.
+      validatorCompiler: ({ httpPart, schema }) => (httpPart === "body" ? (data: unknown) => ({ value: data }) : validatorCompiler({ schema } as never)),
     },
-    async (request) => {
-      const body = request.body;
-      const samples = [body.vp, body.dtc, body.rho].find((c) => c !== undefined)?.length ?? 0;
-      if (samples > options.maxSamples) {
-        throw new ProblemError(
-          "too-many-samples",
-          `The request has ${samples} samples; at most ${options.maxSamples} are accepted in one request. Split the well into several requests.`,
-        );
-      }
-      const parsed = columnsRequest(body);
-      const log = computeElasticLog(parsed.core);
-      const depth = parsed.depth ?? (parsed.top && intervalMidpoints(parsed.top, parsed.base as Float64Array));
-      const derived = deriveProperties(log, { correlations: body.correlations, options: body.correlation_options, zones: body.zones, depth }, "body");
-      const answer = columnsAnswer(log, parsed.core, body.units, parsed);
+    async (request, reply) => {
+      const bytes = request.body as unknown as Buffer;
+      const answer =
+        bytes.length <= INLINE_BODY_BYTES ? prepareColumnsAnswer(bytes, options.maxSamples) : await app.answerPool.prepare(bytes, options.maxSamples);
       app.elasticMetrics.recordConversion(answer.summary.count, answer.summary.flags);
-      return {
-        ...answer,
-        ...(body.zones && depth && { zones: summariseZones(depth, body.zones, propertyColumns(log), log.flags, log.invalidMask) }),
-        ...((parsed.core.fillShear || parsed.core.fillDensity) && { filled: log.filled }),
-        ...(derived && { derived: derivedColumnsAnswer(derived), caution: CAUTION }),
-      };
+      return sendAnswer(reply, answer, app.answerPool);
     },
   );
 }

@@ -7,6 +7,8 @@ import { summariseFlags, withDefaultLimits, type Zone } from "../../core/index.j
 import { gapFills } from "../derived-answer.js";
 import { deriveProperties } from "../derived-request.js";
 import { logsAnswer } from "../logs-answer.js";
+import { sendAnswer } from "../answer-pool.js";
+import { splitAtColumns } from "../elastic-columns.js";
 import { negotiateMediaType } from "../media-negotiation.js";
 import { PROBLEM_MEDIA_TYPE, ProblemError } from "../problems.js";
 import { toPlausibilityLimits } from "../schemas/limits.js";
@@ -153,8 +155,11 @@ export default async function logsRoutes(instance: FastifyInstance, options: Log
       const { log } = conversion;
       const ids = query.correlations?.split(",").map((id) => id.trim()).filter((id) => id !== "");
       const derived = deriveProperties(conversion.log, { correlations: ids, zones, depth: conversion.depth }, "query");
-      app.elasticMetrics.recordConversion(log.length, summariseFlags(log.flags, log.invalidMask).flags);
-      if (format === "json") return logsAnswer(conversion, zones, derived);
+      const summary = summariseFlags(log.flags, log.invalidMask);
+      app.elasticMetrics.recordConversion(summary.count, summary.flags);
+      if (format === "json") {
+        return sendAnswer(reply, { ...splitAtColumns(logsAnswer(conversion, zones, derived)), summary }, app.answerPool);
+      }
       if (zones !== undefined) {
         throw new ProblemError("invalid-request", "Zone statistics are part of the JSON answer: ask for format=json, or leave zones out for CSV and LAS.", [
           { field: "query.zones", message: `not available with format ${format}` },

@@ -59,6 +59,16 @@ describe("Dockerfile recipe", () => {
         expect(live.status).toBe(200);
         const point = await fetch(`${base}/v1/elastic?vp=3000&vs=1500&rho=2.45`);
         expect(((await point.json()) as { E: number }).E).toBeCloseTo(14.7, 12);
+        // Large enough to be parsed, computed and written on the compiled worker threads.
+        const samples = 40_000;
+        const large = await fetch(`${base}/v1/elastic`, {
+          method: "POST",
+          headers: { "content-type": "application/json" },
+          body: JSON.stringify({ vp: Array(samples).fill(3000), vs: Array(samples).fill(1500), rho: Array(samples).fill(2.45) }),
+        });
+        const answer = (await large.json()) as { count: number; E: number[] };
+        expect(answer.count).toBe(samples);
+        expect(answer.E[samples - 1]).toBeCloseTo(14.7, 12);
       } finally {
         const exited = new Promise<number | null>((resolve) => child.once("exit", resolve));
         child.kill("SIGTERM");

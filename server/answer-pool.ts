@@ -1,0 +1,78 @@
+import { availableParallelism } from "node:os";
+import { Readable } from "node:stream";
+import { fileURLToPath } from "node:url";
+import type { FastifyReply } from "fastify";
+import { Piscina } from "piscina";
+import { columnJson, type AnswerParts } from "./elastic-columns.js";
+import { ProblemError } from "./problems.js";
+import type { Outcome } from "./workers/answer-worker.js";
+
+/** Below this many numbers an answer is written on the event loop: a worker round trip would cost more. */
+const PARALLEL_NUMBERS = 200_000;
+
+// Under tsx or vitest this module is TypeScript, and so is its worker, which a small bootstrap loads through tsx.
+const runningTypeScript = new URL(import.meta.url).pathname.endsWith(".ts");
+const WORKER = new URL(runningTypeScript ? "./workers/typescript-worker.mjs" : "./workers/answer-worker.js", import.meta.url);
+
+/** Hands a body to another thread without copying when the Buffer owns its whole ArrayBuffer. */
+const transferable = (bytes: Buffer): Uint8Array =>
+  bytes.byteOffset === 0 && bytes.byteLength === bytes.buffer.byteLength ? bytes : Uint8Array.prototype.slice.call(bytes);
+
+/**
+ * Worker threads for the heavy part of large answers (issue: big requests must not starve small ones):
+ * parsing and computing a large JSON body, and writing large columns as JSON text in parallel.
+ * Threads start on first use and stop after a minute idle.
+ */
+export class AnswerPool {
+  private pool: Piscina | undefined;
+
+  private readonly threads: number;
+
+  constructor(threads: number = availableParallelism()) {
+    this.threads = Math.max(1, threads);
+  }
+
+  private workers(): Piscina {
+    this.pool ??= new Piscina({
+      filename: fileURLToPath(WORKER),
+      maxThreads: this.threads,
+      minThreads: 0,
+      idleTimeout: 60_000,
+    });
+    return this.pool;
+  }
+
+  /** `POST /v1/elastic` body bytes to answer parts, on a worker; a request problem is thrown as ProblemError. */
+  async prepare(bytes: Buffer, maxSamples: number): Promise<AnswerParts> {
+    const body = transferable(bytes);
+    const outcome = (await this.workers().run({ bytes: body, maxSamples }, { name: "prepare", transferList: [body.buffer as ArrayBuffer] })) as Outcome<AnswerParts>;
+    if ("problem" in outcome) throw new ProblemError(outcome.problem.slug, outcome.problem.detail, outcome.problem.errors);
+    return outcome.ok;
+  }
+
+  /** Columns as JSON text, written in parallel by up to `threads` workers (copies of the columns are sent). */
+  async serialize(columns: Float64Array[]): Promise<Buffer[]> {
+    const groups = Array.from({ length: Math.min(this.threads, columns.length) }, (_, g) => columns.filter((_, c) => c % this.threads === g));
+    const results = await Promise.all(groups.map((group) => this.workers().run({ columns: group }, { name: "serialize" }) as Promise<{ texts: Uint8Array[] }>));
+    const texts: Buffer[] = new Array(columns.length);
+    results.forEach(({ texts: groupTexts }, g) => groupTexts.forEach((text, k) => (texts[g + k * this.threads] = Buffer.from(text.buffer, text.byteOffset, text.byteLength))));
+    return texts;
+  }
+
+  async close(): Promise<void> {
+    await this.pool?.destroy();
+    this.pool = undefined;
+  }
+}
+
+/** Sends an answer cut at its columns: small ones joined on the event loop, large ones written by the workers and streamed piece by piece. */
+export const sendAnswer = async (reply: FastifyReply, answer: AnswerParts, pool: AnswerPool) => {
+  reply.type("application/json; charset=utf-8");
+  const numbers = answer.columns.reduce((sum, column) => sum + column.length, 0);
+  if (numbers < PARALLEL_NUMBERS) {
+    return reply.send(answer.parts.map((part, i) => (i < answer.columns.length ? part + columnJson(answer.columns[i]) : part)).join(""));
+  }
+  const texts = await pool.serialize(answer.columns);
+  const pieces = answer.parts.flatMap((part, i) => (i < texts.length ? [Buffer.from(part), texts[i]] : [Buffer.from(part)]));
+  return reply.send(Readable.from(pieces));
+};

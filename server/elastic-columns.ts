@@ -1,0 +1,87 @@
+import { randomUUID } from "node:crypto";
+import type { z } from "zod";
+import { computeElasticLog, isInputIssues, summariseZones, type FlagSummary } from "../core/index.js";
+import { CAUTION, derivedColumnsAnswer } from "./derived-answer.js";
+import { deriveProperties } from "./derived-request.js";
+import { columnsAnswer } from "./elastic-answer.js";
+import { columnsRequest, intervalMidpoints } from "./elastic-request.js";
+import { parseJsonText } from "./json-text.js";
+import { propertyColumns } from "./output-properties.js";
+import { invalidFields, ProblemError, UNKNOWN_FIELD_MESSAGE, unusableData, type ProblemFieldError } from "./problems.js";
+import { elasticColumnsBody } from "./schemas/elastic.js";
+
+/**
+ * An answer split for serialising in parallel: `parts` is the answer's JSON text cut where each large
+ * column goes (column i between parts i and i+1), so columns can be written on other threads and the
+ * pieces sent one after the other without joining them.
+ */
+export interface AnswerParts {
+  parts: string[];
+  columns: Float64Array[];
+  summary: FlagSummary;
+}
+
+/** Zod's issues in the request's own field names, worded as the app's error handler words them. */
+const fieldErrors = (error: z.ZodError): ProblemFieldError[] =>
+  error.issues.flatMap((issue) => {
+    const path = ["body", ...issue.path.map(String)];
+    return issue.code === "unrecognized_keys"
+      ? issue.keys.map((key) => ({ field: [...path, key].join("."), message: UNKNOWN_FIELD_MESSAGE }))
+      : [{ field: path.join("."), message: issue.message }];
+  });
+
+/** Every Float64Array reachable through plain objects (not arrays) of the answer, in JSON order. */
+export const splitAtColumns = (answer: object): Pick<AnswerParts, "parts" | "columns"> => {
+  const marker = randomUUID();
+  const columns: Float64Array[] = [];
+  const visit = (value: object) => {
+    for (const child of Object.values(value)) {
+      if (child instanceof Float64Array) {
+        const index = columns.push(child) - 1;
+        // JSON.stringify calls toJSON: the column is written as a marker string, replaced by its text later.
+        Object.defineProperty(child, "toJSON", { value: () => `${marker}:${index}`, configurable: true });
+      } else if (child !== null && typeof child === "object" && !Array.isArray(child)) visit(child);
+    }
+  };
+  visit(answer);
+  const parts = JSON.stringify(answer).split(new RegExp(`"${marker}:\\d+"`));
+  return { parts, columns };
+};
+
+/** A column as JSON text: JSON.stringify of a plain array writes NaN as null and every number in its shortest exact form. */
+export const columnJson = (column: Float64Array): string => JSON.stringify(Array.from(column));
+
+/**
+ * `POST /v1/elastic` from the raw body bytes to the answer's parts: parse (secure JSON), validate with the
+ * route's zod schema, compute, derive. Pure and thread-safe: it runs on the event loop for small bodies and
+ * on a worker thread for large ones. Throws ProblemError for anything wrong with the request.
+ */
+export const prepareColumnsAnswer = (bytes: Uint8Array, maxSamples: number): AnswerParts => {
+  const parsed = elasticColumnsBody.safeParse(parseJsonText(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString("utf8")));
+  if (!parsed.success) throw invalidFields(fieldErrors(parsed.error));
+  const body = parsed.data;
+  const samples = [body.vp, body.dtc, body.rho].find((c) => c !== undefined)?.length ?? 0;
+  if (samples > maxSamples) {
+    throw new ProblemError(
+      "too-many-samples",
+      `The request has ${samples} samples; at most ${maxSamples} are accepted in one request. Split the well into several requests.`,
+    );
+  }
+  try {
+    const request = columnsRequest(body);
+    const log = computeElasticLog(request.core);
+    const depth = request.depth ?? (request.top && intervalMidpoints(request.top, request.base as Float64Array));
+    const derived = deriveProperties(log, { correlations: body.correlations, options: body.correlation_options, zones: body.zones, depth }, "body");
+    const answer = columnsAnswer(log, request.core, body.units, request);
+    const full = {
+      ...answer,
+      ...(body.zones && depth && { zones: summariseZones(depth, body.zones, propertyColumns(log), log.flags, log.invalidMask) }),
+      ...((request.core.fillShear || request.core.fillDensity) && { filled: log.filled }),
+      ...(derived && { derived: derivedColumnsAnswer(derived), caution: CAUTION }),
+    };
+    return { ...splitAtColumns(full), summary: answer.summary };
+  } catch (error) {
+    if (isInputIssues(error)) throw unusableData(error.message, error.issues, "body");
+    throw error;
+  }
+};

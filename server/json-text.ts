@@ -1,0 +1,33 @@
+import secureJson from "secure-json-parse";
+import { ProblemError } from "./problems.js";
+
+/** Line and column (1-based) of a character offset, so a script author can find the mistake. */
+const lineAndColumn = (text: string, offset: number): string => {
+  let line = 1;
+  let lineStart = 0;
+  for (let i = text.indexOf("\n"); i !== -1 && i < offset; i = text.indexOf("\n", i + 1)) {
+    line++;
+    lineStart = i + 1;
+  }
+  return `line ${line}, column ${offset - lineStart + 1}`;
+};
+
+/**
+ * Parses a JSON body like Fastify's own parser (secure-json-parse, refusing `__proto__` and `constructor`
+ * keys) but keeps the reason as a problem: Fastify's default parser replaces every syntax error with one
+ * generic message.
+ */
+export const parseJsonText = (text: string): unknown => {
+  if (text.length === 0) throw new ProblemError("malformed-body", "The body is empty; send a JSON object (see /openapi.yaml).");
+  try {
+    return secureJson.parse(text, undefined, { protoAction: "error", constructorAction: "error" });
+  } catch (error) {
+    const message = (error as Error).message;
+    if (/forbidden prototype property/i.test(message)) {
+      throw new ProblemError("forbidden-key", "The JSON body contains a key named __proto__ or constructor, which is refused; remove it.");
+    }
+    const position = /position (\d+)/.exec(message);
+    const where = position ? ` (at ${lineAndColumn(text, Number(position[1]))})` : "";
+    throw new ProblemError("malformed-body", `The body is not valid JSON${where}: ${message}.`);
+  }
+};

@@ -1,0 +1,30 @@
+import { Piscina } from "piscina";
+import { isProblemError, type ProblemSlug, type ProblemFieldError } from "../problems.js";
+import { columnJson, prepareColumnsAnswer, type AnswerParts } from "../elastic-columns.js";
+
+/** What crosses back from a worker: errors as data (class instances lose their prototype between threads). */
+export type Outcome<T> = { ok: T } | { problem: { slug: ProblemSlug; detail: string; errors?: ProblemFieldError[] } };
+
+/** Hands the columns' buffers over to the receiving thread instead of copying them (Piscina's Transferable interface). */
+const transferring = <T extends object>(value: T, buffers: ArrayBufferLike[]) =>
+  Piscina.move({
+    [Piscina.transferableSymbol]: buffers,
+    [Piscina.valueSymbol]: value,
+  } as never) as unknown as T;
+
+/** Task `prepare`: parse, validate and compute a `POST /v1/elastic` body. */
+export function prepare({ bytes, maxSamples }: { bytes: Uint8Array; maxSamples: number }) {
+  try {
+    const answer: AnswerParts = prepareColumnsAnswer(bytes, maxSamples);
+    return transferring({ ok: answer } satisfies Outcome<AnswerParts>, answer.columns.map((column) => column.buffer));
+  } catch (error) {
+    if (isProblemError(error)) return { problem: { slug: error.slug, detail: error.detail, errors: error.errors } } satisfies Outcome<AnswerParts>;
+    throw error;
+  }
+}
+
+/** Task `serialize`: columns as JSON text, ASCII bytes (numbers, commas, brackets and null only). */
+export function serialize({ columns }: { columns: Float64Array[] }) {
+  const texts = columns.map((column) => Buffer.from(columnJson(column), "latin1"));
+  return transferring({ texts }, texts.map((text) => text.buffer));
+}
