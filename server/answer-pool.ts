@@ -5,6 +5,7 @@ import type { FastifyReply } from "fastify";
 import { Piscina } from "piscina";
 import { columnJson, type AnswerParts } from "./elastic-columns.js";
 import { ProblemError } from "./problems.js";
+import type { LogsResult, LogsTask } from "./logs-task.js";
 import type { Outcome } from "./workers/answer-worker.js";
 
 /** Below this many numbers an answer is written on the event loop: a worker round trip would cost more. */
@@ -46,6 +47,14 @@ export class AnswerPool {
   async prepare(bytes: Buffer, maxSamples: number): Promise<AnswerParts> {
     const body = transferable(bytes);
     const outcome = (await this.workers().run({ bytes: body, maxSamples }, { name: "prepare", transferList: [body.buffer as ArrayBuffer] })) as Outcome<AnswerParts>;
+    if ("problem" in outcome) throw new ProblemError(outcome.problem.slug, outcome.problem.detail, outcome.problem.errors);
+    return outcome.ok;
+  }
+
+  /** A whole well converted on a worker (`server/logs-task.ts`); the file's bytes are handed over, not copied. */
+  async logs(task: LogsTask): Promise<LogsResult> {
+    const chunks = task.chunks.map((chunk) => transferable(Buffer.from(chunk.buffer, chunk.byteOffset, chunk.byteLength)));
+    const outcome = (await this.workers().run({ ...task, chunks }, { name: "logs", transferList: chunks.map((chunk) => chunk.buffer as ArrayBuffer) })) as Outcome<LogsResult>;
     if ("problem" in outcome) throw new ProblemError(outcome.problem.slug, outcome.problem.detail, outcome.problem.errors);
     return outcome.ok;
   }

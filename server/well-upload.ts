@@ -35,11 +35,10 @@ export const sniffFormat = (start: string): "las" | "csv" | undefined => {
 /**
  * Reads a well file from a byte stream without holding its text: bytes are decoded as UTF-8
  * (invalid bytes become U+FFFD and reading goes on) and pushed to the LAS or CSV reader, which keep
- * only header lines and numeric columns. More than `byteLimit` bytes is a 413 problem.
+ * only header lines and numeric columns.
  */
-export const readWellFile = async (stream: Readable, byteLimit: number): Promise<WellFile> => {
+export const readWellFile = async (stream: Readable): Promise<WellFile> => {
   const decoder = new TextDecoder("utf-8");
-  let bytes = 0;
   let pending = "";
   let format: "las" | "csv" | undefined;
   let reader: TextReader | undefined;
@@ -55,18 +54,7 @@ export const readWellFile = async (stream: Readable, byteLimit: number): Promise
     reader.push(pending);
     pending = "";
   };
-  for await (const chunk of stream) {
-    const buffer = chunk as Buffer;
-    bytes += buffer.length;
-    if (bytes > byteLimit) {
-      stream.destroy();
-      throw new ProblemError(
-        "body-too-large",
-        `The file is larger than this endpoint's limit of ${byteLimit} bytes. Split the well, or ask the operator to raise FILE_BODY_LIMIT_BYTES.`,
-      );
-    }
-    feed(decoder.decode(buffer, { stream: true }));
-  }
+  for await (const chunk of stream) feed(decoder.decode(chunk as Buffer, { stream: true }));
   feed(decoder.decode());
   if (reader === undefined) {
     if (pending.trim() === "" || /^(\s*#[^\n]*\n?)*\s*$/.test(pending)) {

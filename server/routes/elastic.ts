@@ -1,15 +1,13 @@
 import type { FastifyInstance } from "fastify";
 import { validatorCompiler, type ZodTypeProvider } from "fastify-type-provider-zod";
-import { computeElasticLog, summariseFlags, summariseZones } from "../../core/index.js";
-import { CAUTION, derivedColumnsAnswer, derivedPointAnswer } from "../derived-answer.js";
+import { computeElasticLog, summariseFlags } from "../../core/index.js";
+import { CAUTION, derivedPointAnswer } from "../derived-answer.js";
 import { deriveProperties } from "../derived-request.js";
-import { columnsAnswer, pointAnswer } from "../elastic-answer.js";
-import { columnsRequest, intervalMidpoints, pointRequest } from "../elastic-request.js";
-import { propertyColumns } from "../output-properties.js";
+import { pointAnswer } from "../elastic-answer.js";
+import { pointRequest } from "../elastic-request.js";
 import { installRawJsonBodyParser } from "../plugins/json-body.js";
 import { sendAnswer } from "../answer-pool.js";
 import { prepareColumnsAnswer } from "../elastic-columns.js";
-import { ProblemError } from "../problems.js";
 import {
   elasticColumnsBody,
   elasticColumnsResponse,

@@ -3,21 +3,14 @@ import multipart from "@fastify/multipart";
 import type { FastifyInstance, FastifyRequest } from "fastify";
 import type { ZodTypeProvider } from "fastify-type-provider-zod";
 import { z } from "zod";
-import { summariseFlags, withDefaultLimits, type Zone } from "../../core/index.js";
-import { gapFills } from "../derived-answer.js";
-import { deriveProperties } from "../derived-request.js";
-import { logsAnswer } from "../logs-answer.js";
+import type { Zone } from "../../core/index.js";
+import { convertLogs, type ZoneWithList } from "../logs-task.js";
 import { sendAnswer } from "../answer-pool.js";
-import { splitAtColumns } from "../elastic-columns.js";
 import { negotiateMediaType } from "../media-negotiation.js";
 import { PROBLEM_MEDIA_TYPE, ProblemError } from "../problems.js";
-import { toPlausibilityLimits } from "../schemas/limits.js";
 import { logsJsonResponse, logsQuery, type LogsQuery } from "../schemas/logs.js";
 import { commonProblemResponses, problemSchema } from "../schemas/problem.js";
 import { parseZonesText, zoneList } from "../schemas/zones.js";
-import { convertWell, type WellConversion } from "../well-conversion.js";
-import { csvChunks, lasChunks } from "../well-output.js";
-import { readWellFile, type WellFile } from "../well-upload.js";
 
 export interface LogsRouteOptions {
   fileBodyLimitBytes: number;
@@ -29,7 +22,7 @@ export const RAW_FILE_TYPES = ["text/plain", "text/csv", "application/octet-stre
 
 const MEDIA_TYPES = { json: "application/json", csv: "text/csv", las: "application/x-las" } as const;
 type Format = keyof typeof MEDIA_TYPES;
-type ZoneWithList = Zone & { correlations?: string[] };
+
 
 const chooseFormat = (query: LogsQuery, accept: string | undefined): Format => {
   if (query.format !== undefined) return query.format;
@@ -66,15 +59,15 @@ const zonesFromPart = (value: unknown): ZoneWithList[] => {
 };
 
 /** The well file and zones of a multipart upload: exactly one file part, optionally a `zones` part. */
-const readMultipart = async (request: FastifyRequest, byteLimit: number): Promise<{ file: WellFile; zones?: ZoneWithList[] }> => {
-  let file: WellFile | undefined;
+const readMultipart = async (request: FastifyRequest, byteLimit: number): Promise<{ chunks: Buffer[]; zones?: ZoneWithList[] }> => {
+  let file: Buffer[] | undefined;
   let zones: ZoneWithList[] | undefined;
   for await (const part of request.parts()) {
     if (part.type === "file" && part.fieldname === "zones") {
       zones = zonesFromPart((await part.toBuffer()).toString("utf8"));
     } else if (part.type === "file") {
       if (file !== undefined) throw new ProblemError("invalid-request", "Send one well file per request; this upload has several file parts.");
-      file = await readWellFile(part.file, byteLimit);
+      file = await readBytes(part.file, byteLimit);
       if (part.file.truncated) throw new ProblemError("body-too-large", `The file part is larger than the limit of ${byteLimit} bytes.`);
     } else if (part.fieldname === "zones") {
       zones = zonesFromPart(part.value);
@@ -83,8 +76,29 @@ const readMultipart = async (request: FastifyRequest, byteLimit: number): Promis
     }
   }
   if (file === undefined) throw new ProblemError("invalid-request", "The multipart upload has no file part: use curl -F file=@well.las.");
-  return { file, zones };
+  return { chunks: file, zones };
 };
+
+/** The bytes of a body or file part, refusing more than `byteLimit` (413) without reading further. */
+const readBytes = async (stream: Readable, byteLimit: number): Promise<Buffer[]> => {
+  const chunks: Buffer[] = [];
+  let bytes = 0;
+  for await (const chunk of stream) {
+    bytes += (chunk as Buffer).length;
+    if (bytes > byteLimit) {
+      stream.destroy();
+      throw new ProblemError(
+        "body-too-large",
+        `The file is larger than this endpoint's limit of ${byteLimit} bytes. Split the well, or ask the operator to raise FILE_BODY_LIMIT_BYTES.`,
+      );
+    }
+    chunks.push(chunk as Buffer);
+  }
+  return chunks;
+};
+
+/** Files up to this size are converted on the event loop; larger ones on a worker thread. */
+const INLINE_FILE_BYTES = 1024 * 1024;
 
 export default async function logsRoutes(instance: FastifyInstance, options: LogsRouteOptions): Promise<void> {
   const app = instance.withTypeProvider<ZodTypeProvider>();
@@ -129,45 +143,23 @@ export default async function logsRoutes(instance: FastifyInstance, options: Log
       const query = request.query;
       const format = chooseFormat(query, request.headers.accept);
       let zones: ZoneWithList[] | undefined = zonesFromQuery(query.zones);
-      let file: WellFile;
+      let chunks: Buffer[];
       if (request.isMultipart()) {
         const upload = await readMultipart(request, options.fileBodyLimitBytes);
-        file = upload.file;
+        chunks = upload.chunks;
         zones = upload.zones ?? zones;
       } else {
-        file = await readWellFile(request.body as Readable, options.fileBodyLimitBytes);
+        chunks = await readBytes(request.body as Readable, options.fileBodyLimitBytes);
       }
-      const rows = file.table.columns[0]?.length ?? 0;
-      if (rows > options.maxSamples) {
-        throw new ProblemError("too-many-samples", `The file has ${rows} samples; at most ${options.maxSamples} are accepted in one request. Split the well.`);
-      }
-      const conversion: WellConversion = convertWell(file, {
-        curves: { vp: query.vp_curve, vs: query.vs_curve, rho: query.rho_curve, depth: query.depth_curve },
-        units: { vp: query.vp_unit, vs: query.vs_unit, rho: query.rho_unit, depth: query.depth_unit },
-        nullValue: query.null_value,
-        keepNegativePoisson: query.keep_negative_poisson,
-        limits: withDefaultLimits(toPlausibilityLimits(query)),
-        modulusUnit: query.modulus_unit,
-        velocityUnit: query.velocity_unit,
-        impedanceUnit: query.impedance_unit,
-        ...gapFills(query, "query"),
-      });
-      const { log } = conversion;
-      const ids = query.correlations?.split(",").map((id) => id.trim()).filter((id) => id !== "");
-      const derived = deriveProperties(conversion.log, { correlations: ids, zones, depth: conversion.depth }, "query");
-      const summary = summariseFlags(log.flags, log.invalidMask);
+      const task = { chunks, query, zones, format, maxSamples: options.maxSamples };
+      const bytes = chunks.reduce((sum, chunk) => sum + chunk.length, 0);
+      const result = bytes <= INLINE_FILE_BYTES ? await convertLogs(task) : await app.answerPool.logs(task);
+      const summary = result.kind === "json" ? result.answer.summary : result.summary;
       app.elasticMetrics.recordConversion(summary.count, summary.flags);
-      if (format === "json") {
-        return sendAnswer(reply, { ...splitAtColumns(logsAnswer(conversion, zones, derived)), summary }, app.answerPool);
-      }
-      if (zones !== undefined) {
-        throw new ProblemError("invalid-request", "Zone statistics are part of the JSON answer: ask for format=json, or leave zones out for CSV and LAS.", [
-          { field: "query.zones", message: `not available with format ${format}` },
-        ]);
-      }
-      const chunks = Readable.from(format === "csv" ? csvChunks(conversion, derived) : lasChunks(conversion, derived));
+      if (result.kind === "json") return sendAnswer(reply, result.answer, app.answerPool);
+      const body = Readable.from(result.pieces.map((piece) => Buffer.from(piece.buffer, piece.byteOffset, piece.byteLength)));
       // The type provider types reply bodies from the JSON schema; a stream of text is sent as it is.
-      return reply.type(format === "csv" ? "text/csv; charset=utf-8; header=present" : "application/x-las; charset=utf-8").send(chunks as unknown as string);
+      return reply.type(format === "csv" ? "text/csv; charset=utf-8; header=present" : "application/x-las; charset=utf-8").send(body as unknown as string);
     },
   );
 }

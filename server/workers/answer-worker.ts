@@ -1,6 +1,7 @@
 import { Piscina } from "piscina";
 import { isProblemError, type ProblemSlug, type ProblemFieldError } from "../problems.js";
 import { columnJson, prepareColumnsAnswer, type AnswerParts } from "../elastic-columns.js";
+import { convertLogs, type LogsResult, type LogsTask } from "../logs-task.js";
 
 /** What crosses back from a worker: errors as data (class instances lose their prototype between threads). */
 export type Outcome<T> = { ok: T } | { problem: { slug: ProblemSlug; detail: string; errors?: ProblemFieldError[] } };
@@ -27,4 +28,16 @@ export function prepare({ bytes, maxSamples }: { bytes: Uint8Array; maxSamples: 
 export function serialize({ columns }: { columns: Float64Array[] }) {
   const texts = columns.map((column) => Buffer.from(columnJson(column), "latin1"));
   return transferring({ texts }, texts.map((text) => text.buffer));
+}
+
+/** Task `logs`: read, convert and write a whole well. */
+export async function logs(task: LogsTask) {
+  try {
+    const result = await convertLogs(task);
+    const buffers = result.kind === "json" ? result.answer.columns.map((column) => column.buffer) : result.pieces.map((piece) => piece.buffer);
+    return transferring({ ok: result } satisfies Outcome<LogsResult>, buffers);
+  } catch (error) {
+    if (isProblemError(error)) return { problem: { slug: error.slug, detail: error.detail, errors: error.errors } } satisfies Outcome<LogsResult>;
+    throw error;
+  }
 }

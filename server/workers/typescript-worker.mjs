@@ -6,3 +6,4 @@ const worker = await tsImport("./answer-worker.ts", import.meta.url);
 
 export const prepare = (task) => worker.prepare(task);
 export const serialize = (task) => worker.serialize(task);
+export const logs = (task) => worker.logs(task);

@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { parseLas } from "../../core/index.js";
 import { elasticColumnsResponse } from "../../server/schemas/elastic.js";
 import { build } from "../helpers/build.js";
 
@@ -48,5 +49,36 @@ describe("large answers (parsed, computed and written on worker threads)", () =>
     expect(truncated.json().type).toBe("/problems/malformed-body");
     const unknown = await app.inject({ method: "POST", url: "/v1/elastic", payload: { ...columns, VS: [1] } });
     expect(unknown.json().errors).toEqual([{ field: "body.VS", message: expect.stringContaining("unknown field") }]);
+  });
+});
+
+describe("large files (converted on a worker thread)", () => {
+  const csvOf = (rows: number, bad?: number) => {
+    const { dtc, dts, rho } = syntheticColumns(rows);
+    const lines = ["DEPT[m],DTC[us/ft],DTS[us/ft],RHOB[g/cm3]"];
+    for (let i = 0; i < rows; i++) lines.push(`${1000 + i * 0.1524},${i === bad ? "n/a?" : (dtc[i] ?? "")},${dts[i] ?? ""},${rho[i]}`);
+    return `${lines.join("\r\n")}\r\n`;
+  };
+
+  it("a 40,000-row CSV (over 1 MiB) converts to JSON and LAS with every row, the same as a small file of the same rows", async () => {
+    const app = await build();
+    const text = csvOf(40_000);
+    expect(Buffer.byteLength(text)).toBeGreaterThan(1024 * 1024);
+    const json = await app.inject({ method: "POST", url: "/v1/logs", payload: text, headers: { "content-type": "text/csv" } });
+    expect(json.statusCode).toBe(200);
+    const answer = json.json();
+    expect(answer.count).toBe(40_000);
+    const head = text.split("\r\n").slice(0, 11).join("\r\n") + "\r\n";
+    const small = (await app.inject({ method: "POST", url: "/v1/logs", payload: head, headers: { "content-type": "text/csv" } })).json();
+    expect(answer.E.slice(0, 10)).toEqual(small.E);
+    const las = await app.inject({ method: "POST", url: "/v1/logs?format=las", payload: text, headers: { "content-type": "text/csv" } });
+    expect(parseLas(las.body).table.columns[0]).toHaveLength(40_000);
+  });
+
+  it("a problem on row 30,000 of a large file names its line, as for a small one", async () => {
+    const app = await build();
+    const response = await app.inject({ method: "POST", url: "/v1/logs", payload: csvOf(40_000, 29_999), headers: { "content-type": "text/csv" } });
+    expect(response.statusCode).toBe(422);
+    expect(response.json().errors[0]).toMatchObject({ field: "body", line: 30_001 });
   });
 });
