@@ -12,7 +12,7 @@ import {
 } from "../core/index.js";
 import { gapFills } from "./derived-answer.js";
 import type { ElasticColumnsBody, ElasticPointQuery } from "./schemas/elastic.js";
-import { toPlausibilityLimits } from "./schemas/limits.js";
+import { toPlausibilityLimits, type LimitFields } from "./schemas/limits.js";
 
 interface UnitChoice {
   velocity: VelocityUnit;
@@ -41,6 +41,28 @@ const column = (values: unknown[] | undefined, field: string): Float64Array | un
 const one = (value: number | undefined): Float64Array | undefined =>
   value === undefined ? undefined : Float64Array.of(value);
 
+/** Options every query-string request shares (GET /v1/elastic, POST /v1/logs). */
+export interface QueryOptions extends LimitFields {
+  null_value?: number;
+  keep_negative_poisson: boolean;
+  modulus_unit: ModulusUnit;
+  velocity_unit: VelocityUnit;
+  impedance_unit: ImpedanceUnit;
+  vs_from?: string;
+  rho_from?: string;
+  fill?: "nulls" | "all";
+}
+
+/** The computation options of a query-string request, in core's terms. */
+export const optionsFromQuery = (query: QueryOptions) => ({
+  keepNegativePoisson: query.keep_negative_poisson,
+  limits: withDefaultLimits(toPlausibilityLimits(query)),
+  modulusUnit: query.modulus_unit,
+  velocityUnit: query.velocity_unit,
+  impedanceUnit: query.impedance_unit,
+  ...gapFills(query, "query"),
+});
+
 /** The core request for the single sample of `GET /v1/elastic`. */
 export const pointRequest = (query: ElasticPointQuery): ElasticLogRequest => {
   const units: UnitChoice = {
@@ -55,12 +77,7 @@ export const pointRequest = (query: ElasticPointQuery): ElasticLogRequest => {
     shear: sonic(one(query.vs), one(query.dts), units, 1),
     density: { unit: units.density, values: absentIfUndefined(one(query.rho), 1) },
     nullValue: query.null_value,
-    keepNegativePoisson: query.keep_negative_poisson,
-    limits: withDefaultLimits(toPlausibilityLimits(query)),
-    modulusUnit: units.modulus,
-    velocityUnit: units.velocity,
-    impedanceUnit: units.impedance,
-    ...gapFills(query, "query"),
+    ...optionsFromQuery(query),
   };
 };
 

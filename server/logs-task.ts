@@ -1,11 +1,10 @@
 import { Readable } from "node:stream";
-import { isInputIssues, isWellFileError, summariseFlags, withDefaultLimits, type Zone } from "../core/index.js";
-import { gapFills } from "./derived-answer.js";
+import { isInputIssues, isWellFileError, summariseFlags, type Zone } from "../core/index.js";
 import { deriveProperties } from "./derived-request.js";
+import { optionsFromQuery } from "./elastic-request.js";
 import { splitAtColumns, type AnswerParts } from "./elastic-columns.js";
 import { logsAnswer } from "./logs-answer.js";
 import { ProblemError, unusableData } from "./problems.js";
-import { toPlausibilityLimits } from "./schemas/limits.js";
 import type { LogsQuery } from "./schemas/logs.js";
 import { convertWell } from "./well-conversion.js";
 import { csvChunks, lasChunks } from "./well-output.js";
@@ -60,12 +59,7 @@ export const convertLogs = async (task: LogsTask): Promise<LogsResult> => {
       curves: { vp: query.vp_curve, vs: query.vs_curve, rho: query.rho_curve, depth: query.depth_curve },
       units: { vp: query.vp_unit, vs: query.vs_unit, rho: query.rho_unit, depth: query.depth_unit },
       nullValue: query.null_value,
-      keepNegativePoisson: query.keep_negative_poisson,
-      limits: withDefaultLimits(toPlausibilityLimits(query)),
-      modulusUnit: query.modulus_unit,
-      velocityUnit: query.velocity_unit,
-      impedanceUnit: query.impedance_unit,
-      ...gapFills(query, "query"),
+      ...optionsFromQuery(query),
     });
     const { log } = conversion;
     const ids = query.correlations?.split(",").map((id) => id.trim()).filter((id) => id !== "");

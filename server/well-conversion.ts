@@ -10,10 +10,6 @@ import {
   type DepthUnit,
   type ElasticLog,
   type ElasticLogRequest,
-  type GapFill,
-  type ImpedanceUnit,
-  type ModulusUnit,
-  type PlausibilityLimits,
   type SonicCurve,
   type UnitKind,
   type VelocityUnit,
@@ -23,18 +19,12 @@ import type { WellFile } from "./well-upload.js";
 
 type Role = "vp" | "vs" | "rho" | "depth";
 
-export interface ConversionOptions {
+/** The options of a core request, plus how to find the curves and read their units; the null value defaults to the file's. */
+export type ConversionOptions = Omit<ElasticLogRequest, "compressional" | "shear" | "density" | "nullValue"> & {
   curves: CurveOverrides;
   units: Partial<Record<Role, string>>;
   nullValue: number | undefined;
-  keepNegativePoisson: boolean;
-  limits: PlausibilityLimits;
-  modulusUnit: ModulusUnit;
-  velocityUnit: VelocityUnit;
-  impedanceUnit: ImpedanceUnit;
-  fillShear?: GapFill;
-  fillDensity?: GapFill;
-}
+};
 
 /** How one role was filled: which curve, read in which unit, and why. */
 export interface RoleChoice {
@@ -127,18 +117,13 @@ export const convertWell = (file: WellFile, options: ConversionOptions): WellCon
   const columns = file.table.columns;
   const rows = columns[vp.index].length;
   const absent = () => new Float64Array(rows).fill(NaN);
+  const { curves: _curves, units: _units, ...computation } = options;
   const request: ElasticLogRequest = {
+    ...computation,
     compressional: sonic(vp, columns[vp.index]),
     shear: vs ? sonic(vs, columns[vs.index]) : { measure: "velocity", unit: "m/s", values: absent() },
     density: rho ? { unit: rho.unit as DensityUnit, values: columns[rho.index] } : { unit: "g/cm3", values: absent() },
     nullValue,
-    keepNegativePoisson: options.keepNegativePoisson,
-    limits: options.limits,
-    modulusUnit: options.modulusUnit,
-    velocityUnit: options.velocityUnit,
-    impedanceUnit: options.impedanceUnit,
-    fillShear: options.fillShear,
-    fillDensity: options.fillDensity,
   };
   if (!vs) warnings.push({ message: `no shear curve: Vs of every sample is predicted by ${options.fillShear?.correlation.id}` });
   if (!rho) warnings.push({ message: `no density curve: bulk density of every sample is predicted by ${options.fillDensity?.correlation.id}` });
