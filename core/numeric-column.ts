@@ -2,9 +2,11 @@ import { InputIssues, MAX_LISTED_ISSUES, type InputIssue } from "./input-issues.
 
 /**
  * Reads a column given as an array of numbers and nulls into a Float64Array,
- * with NaN where the array holds null. Any other element is an issue naming its index.
+ * with NaN where the array holds null. Any other element is an issue naming its index. A Float64Array
+ * (from a binary body) is already a column and is taken as it is.
  */
-export const toFloat64Column = (values: readonly unknown[], field: string): Float64Array => {
+export const toFloat64Column = (values: readonly unknown[] | Float64Array, field: string): Float64Array => {
+  if (values instanceof Float64Array) return values;
   const column = new Float64Array(values.length);
   const issues: InputIssue[] = [];
   for (let i = 0; i < values.length; i++) {

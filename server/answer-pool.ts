@@ -3,7 +3,7 @@ import { Readable } from "node:stream";
 import { fileURLToPath } from "node:url";
 import type { FastifyReply } from "fastify";
 import { Piscina } from "piscina";
-import { columnJson, type AnswerParts } from "./elastic-columns.js";
+import { columnJson, type AnswerParts, type ColumnsBody, type PreparedAnswer } from "./elastic-columns.js";
 import { ProblemError } from "./problems.js";
 import type { LogsResult, LogsTask } from "./logs-task.js";
 import type { Outcome } from "./workers/answer-worker.js";
@@ -43,10 +43,13 @@ export class AnswerPool {
     return this.pool;
   }
 
-  /** `POST /v1/elastic` body bytes to answer parts, on a worker; a request problem is thrown as ProblemError. */
-  async prepare(bytes: Buffer, maxSamples: number): Promise<AnswerParts> {
-    const body = transferable(bytes);
-    const outcome = (await this.workers().run({ bytes: body, maxSamples }, { name: "prepare", transferList: [body.buffer as ArrayBuffer] })) as Outcome<AnswerParts>;
+  /** `POST /v1/elastic` body to the prepared answer, on a worker; a request problem is thrown as ProblemError. */
+  async prepare(body: ColumnsBody, maxSamples: number, format: "json" | "arrow"): Promise<PreparedAnswer> {
+    const bytes = transferable(Buffer.from(body.bytes.buffer, body.bytes.byteOffset, body.bytes.byteLength));
+    const outcome = (await this.workers().run(
+      { body: { ...body, bytes }, maxSamples, format },
+      { name: "prepare", transferList: [bytes.buffer as ArrayBuffer] },
+    )) as Outcome<PreparedAnswer>;
     if ("problem" in outcome) throw new ProblemError(outcome.problem.slug, outcome.problem.detail, outcome.problem.errors);
     return outcome.ok;
   }

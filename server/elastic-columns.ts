@@ -1,6 +1,7 @@
 import { randomUUID } from "node:crypto";
 import type { z } from "zod";
 import { computeElasticLog, isInputIssues, summariseZones, type FlagSummary } from "../core/index.js";
+import { decodeArrowColumns, encodeArrowAnswer } from "./arrow-codec.js";
 import { CAUTION, derivedColumnsAnswer } from "./derived-answer.js";
 import { deriveProperties } from "./derived-request.js";
 import { columnsAnswer } from "./elastic-answer.js";
@@ -8,7 +9,8 @@ import { columnsRequest, intervalMidpoints } from "./elastic-request.js";
 import { parseJsonText } from "./json-text.js";
 import { propertyColumns } from "./output-properties.js";
 import { invalidFields, ProblemError, UNKNOWN_FIELD_MESSAGE, unusableData, type ProblemFieldError } from "./problems.js";
-import { elasticColumnsBody } from "./schemas/elastic.js";
+import { elasticColumnsBody, type ElasticArrowQuery } from "./schemas/elastic.js";
+import { limitFields } from "./schemas/limits.js";
 
 /**
  * An answer split for serialising in parallel: `parts` is the answer's JSON text cut where each large
@@ -20,6 +22,33 @@ export interface AnswerParts {
   columns: Float64Array[];
   summary: FlagSummary;
 }
+
+/** A prepared answer of `POST /v1/elastic`: JSON cut at its columns, or a whole Arrow IPC stream. */
+export type PreparedAnswer = ({ kind: "json" } & AnswerParts) | { kind: "arrow"; bytes: Uint8Array; summary: FlagSummary };
+
+/** The body as sent: JSON text, or an Arrow IPC stream of columns with the other options in the query string. */
+export type ColumnsBody = { kind: "json"; bytes: Uint8Array } | { kind: "arrow"; bytes: Uint8Array; query: ElasticArrowQuery };
+
+/** An Arrow body's columns with its query options, in the shape of a JSON body, for the same validation. */
+const bodyFromArrow = (bytes: Uint8Array, query: ElasticArrowQuery): unknown => {
+  const { columns } = decodeArrowColumns(bytes);
+  const units = Object.fromEntries(
+    (["velocity", "slowness", "density", "modulus", "depth", "impedance"] as const)
+      .map((unit) => [unit, query[`${unit}_unit`]])
+      .filter(([, value]) => value !== undefined),
+  );
+  const limits = Object.fromEntries(Object.keys(limitFields).flatMap((key) => (query[key as keyof typeof limitFields] === undefined ? [] : [[key, query[key as keyof typeof limitFields]]])));
+  return {
+    ...columns,
+    units,
+    limits,
+    ...(query.null_value !== undefined && { null_value: query.null_value }),
+    ...(query.keep_negative_poisson !== undefined && { keep_negative_poisson: query.keep_negative_poisson }),
+    ...(query.vs_from !== undefined && { vs_from: query.vs_from }),
+    ...(query.rho_from !== undefined && { rho_from: query.rho_from }),
+    ...(query.fill !== undefined && { fill: query.fill }),
+  };
+};
 
 /** Zod's issues in the request's own field names, worded as the app's error handler words them. */
 const fieldErrors = (error: z.ZodError): ProblemFieldError[] =>
@@ -52,12 +81,23 @@ export const splitAtColumns = (answer: object): Pick<AnswerParts, "parts" | "col
 export const columnJson = (column: Float64Array): string => JSON.stringify(Array.from(column));
 
 /**
- * `POST /v1/elastic` from the raw body bytes to the answer's parts: parse (secure JSON), validate with the
- * route's zod schema, compute, derive. Pure and thread-safe: it runs on the event loop for small bodies and
- * on a worker thread for large ones. Throws ProblemError for anything wrong with the request.
+ * `POST /v1/elastic` from the raw body to the answer: parse (secure JSON, or Arrow), validate with the route's
+ * zod schema, compute, derive, and shape the answer as JSON parts or an Arrow stream. Pure and thread-safe:
+ * it runs on the event loop for small bodies and on a worker thread for large ones. Throws ProblemError for
+ * anything wrong with the request.
  */
-export const prepareColumnsAnswer = (bytes: Uint8Array, maxSamples: number): AnswerParts => {
-  const parsed = elasticColumnsBody.safeParse(parseJsonText(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString("utf8")));
+export const prepareColumnsAnswer = (input: ColumnsBody, maxSamples: number, format: "json" | "arrow"): PreparedAnswer => {
+  let raw: unknown;
+  try {
+    raw =
+      input.kind === "json"
+        ? parseJsonText(Buffer.from(input.bytes.buffer, input.bytes.byteOffset, input.bytes.byteLength).toString("utf8"))
+        : bodyFromArrow(input.bytes, input.query);
+  } catch (error) {
+    if (isInputIssues(error)) throw unusableData(error.message, error.issues, "body");
+    throw error;
+  }
+  const parsed = elasticColumnsBody.safeParse(raw);
   if (!parsed.success) throw invalidFields(fieldErrors(parsed.error));
   const body = parsed.data;
   const samples = [body.vp, body.dtc, body.rho].find((c) => c !== undefined)?.length ?? 0;
@@ -73,13 +113,19 @@ export const prepareColumnsAnswer = (bytes: Uint8Array, maxSamples: number): Ans
     const depth = request.depth ?? (request.top && intervalMidpoints(request.top, request.base as Float64Array));
     const derived = deriveProperties(log, { correlations: body.correlations, options: body.correlation_options, zones: body.zones, depth }, "body");
     const answer = columnsAnswer(log, request.core, body.units, request);
+    if (format === "arrow") {
+      if (derived || body.zones) {
+        throw new ProblemError("not-acceptable", "Correlations and zones are answered in JSON only: ask for application/json, or leave them out for an Arrow answer.");
+      }
+      return { kind: "arrow", bytes: encodeArrowAnswer(log, request.core, body.units, request), summary: answer.summary };
+    }
     const full = {
       ...answer,
       ...(body.zones && depth && { zones: summariseZones(depth, body.zones, propertyColumns(log), log.flags, log.invalidMask) }),
       ...((request.core.fillShear || request.core.fillDensity) && { filled: log.filled }),
       ...(derived && { derived: derivedColumnsAnswer(derived), caution: CAUTION }),
     };
-    return { ...splitAtColumns(full), summary: answer.summary };
+    return { kind: "json", ...splitAtColumns(full), summary: answer.summary };
   } catch (error) {
     if (isInputIssues(error)) throw unusableData(error.message, error.issues, "body");
     throw error;

@@ -35,7 +35,7 @@ const sonic = (velocity: Float64Array | undefined, slowness: Float64Array | unde
 const absentIfUndefined = (values: Float64Array | undefined, length: number): Float64Array =>
   values ?? new Float64Array(length).fill(NaN);
 
-const column = (values: unknown[] | undefined, field: string): Float64Array | undefined =>
+const column = (values: unknown[] | Float64Array | undefined, field: string): Float64Array | undefined =>
   values === undefined ? undefined : toFloat64Column(values, field);
 
 const one = (value: number | undefined): Float64Array | undefined =>

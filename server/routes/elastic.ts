@@ -1,4 +1,5 @@
 import type { FastifyInstance } from "fastify";
+import { z } from "zod";
 import { validatorCompiler, type ZodTypeProvider } from "fastify-type-provider-zod";
 import { computeElasticLog, summariseFlags } from "../../core/index.js";
 import { CAUTION, derivedPointAnswer } from "../derived-answer.js";
@@ -7,8 +8,12 @@ import { pointAnswer } from "../elastic-answer.js";
 import { pointRequest } from "../elastic-request.js";
 import { installRawJsonBodyParser } from "../plugins/json-body.js";
 import { sendAnswer } from "../answer-pool.js";
-import { prepareColumnsAnswer } from "../elastic-columns.js";
+import { ARROW_STREAM_MEDIA_TYPE } from "../arrow-codec.js";
+import { prepareColumnsAnswer, type ColumnsBody } from "../elastic-columns.js";
+import { negotiateMediaType } from "../media-negotiation.js";
+import { ProblemError } from "../problems.js";
 import {
+  elasticArrowQuery,
   elasticColumnsBody,
   elasticColumnsResponse,
   elasticPointQuery,
@@ -22,6 +27,7 @@ export interface ElasticRouteOptions {
 
 /** Bodies up to this size are parsed and computed on the event loop (about 10,000 samples); larger ones on a worker. */
 const INLINE_BODY_BYTES = 512 * 1024;
+const JSON_MEDIA_TYPE = "application/json";
 
 const DESCRIPTION = [
   "Dynamic elastic properties from sonic velocities or slownesses and bulk density, with exact isotropic relations",
@@ -35,6 +41,7 @@ export default async function elasticRoutes(instance: FastifyInstance, options: 
   // Content-type parsers are encapsulated per plugin: here only JSON is accepted, anything else is a 415.
   app.removeAllContentTypeParsers();
   installRawJsonBodyParser(app);
+  app.addContentTypeParser(ARROW_STREAM_MEDIA_TYPE, { parseAs: "buffer" }, (_request, body, done) => done(null, body));
 
   app.get(
     "/v1/elastic",
@@ -73,7 +80,23 @@ export default async function elasticRoutes(instance: FastifyInstance, options: 
         summary: "Elastic properties of many samples or intervals, as columns.",
         description: `${DESCRIPTION} Columns of equal length; the answer has one value per input row, in input order, nothing dropped.`,
         body: elasticColumnsBody,
-        response: { 200: elasticColumnsResponse, ...commonProblemResponses },
+        querystring: elasticArrowQuery,
+        consumes: [JSON_MEDIA_TYPE, ARROW_STREAM_MEDIA_TYPE],
+        response: {
+          200: {
+            description: "The columns, as JSON, or as an Arrow IPC stream when Accept asks for application/vnd.apache.arrow.stream.",
+            content: {
+              [JSON_MEDIA_TYPE]: { schema: elasticColumnsResponse },
+              [ARROW_STREAM_MEDIA_TYPE]: {
+                schema: z.string().meta({
+                  description:
+                    "Arrow IPC stream: depth/top/base echoed, every property as float64 (nulls where invalid, unit in field metadata elastilog.unit), and flags, a uint32 bit mask per sample; schema metadata elastilog.flag_bits maps bit to code, elastilog.flag_severity, elastilog.units, elastilog.limits, elastilog.summary, elastilog.version.",
+                }),
+              },
+            },
+          },
+          ...commonProblemResponses,
+        },
       },
       // The body schema documents the contract; the body is validated with it in prepareColumnsAnswer, on a
       // worker thread when large, so a big body is parsed and checked off the event loop.
@@ -81,9 +104,24 @@ export default async function elasticRoutes(instance: FastifyInstance, options: 
     },
     async (request, reply) => {
       const bytes = request.body as unknown as Buffer;
+      const format = negotiateMediaType(request.headers.accept, [JSON_MEDIA_TYPE, ARROW_STREAM_MEDIA_TYPE]);
+      if (format === undefined) {
+        throw new ProblemError("not-acceptable", `Accept "${request.headers.accept}" names no format this endpoint writes: application/json or ${ARROW_STREAM_MEDIA_TYPE}.`);
+      }
+      const arrow = request.headers["content-type"]?.toLowerCase().startsWith(ARROW_STREAM_MEDIA_TYPE) === true;
+      if (!arrow && Object.keys(request.query).length > 0) {
+        throw new ProblemError("invalid-request", "Query parameters are the options of an Arrow body; a JSON body carries its options itself (units, null_value, limits…).", [
+          { field: "query", message: "leave the query string empty with a JSON body" },
+        ]);
+      }
+      const body: ColumnsBody = arrow ? { kind: "arrow", bytes, query: request.query } : { kind: "json", bytes };
+      const answerFormat = format === ARROW_STREAM_MEDIA_TYPE ? "arrow" : "json";
       const answer =
-        bytes.length <= INLINE_BODY_BYTES ? prepareColumnsAnswer(bytes, options.maxSamples) : await app.answerPool.prepare(bytes, options.maxSamples);
+        bytes.length <= INLINE_BODY_BYTES
+          ? prepareColumnsAnswer(body, options.maxSamples, answerFormat)
+          : await app.answerPool.prepare(body, options.maxSamples, answerFormat);
       app.elasticMetrics.recordConversion(answer.summary.count, answer.summary.flags);
+      if (answer.kind === "arrow") return reply.type(ARROW_STREAM_MEDIA_TYPE).send(Buffer.from(answer.bytes.buffer, answer.bytes.byteOffset, answer.bytes.byteLength) as unknown as string);
       return sendAnswer(reply, answer, app.answerPool);
     },
   );

@@ -100,7 +100,9 @@ export const elasticPointResponse = z
 
 const column = (description: string) =>
   z
-    .custom<unknown[]>((value) => Array.isArray(value), { message: "expected an array of numbers and nulls" })
+    .custom<unknown[] | Float64Array>((value) => Array.isArray(value) || value instanceof Float64Array, {
+      message: "expected an array of numbers and nulls",
+    })
     .optional()
     .meta({ type: "array", items: { type: ["number", "null"] }, description });
 
@@ -199,3 +201,21 @@ export const elasticColumnsResponse = z
 
 export type ElasticPointQuery = z.infer<typeof elasticPointQuery>;
 export type ElasticColumnsBody = z.infer<typeof elasticColumnsBody>;
+
+/**
+ * Options of an Arrow body (`application/vnd.apache.arrow.stream`), which carries only columns: the rest of
+ * the JSON body's fields, as query parameters. Correlations and zones are for JSON bodies.
+ */
+export const elasticArrowQuery = z.strictObject({
+  velocity_unit: velocityUnit.optional(),
+  slowness_unit: slownessUnit.optional(),
+  density_unit: densityUnit.optional(),
+  modulus_unit: modulusUnit.optional(),
+  depth_unit: depthUnit.optional(),
+  impedance_unit: impedanceUnit.optional(),
+  null_value: z.coerce.number().optional().meta({ description: "A value equal to this is absent; default -999.25. Arrow nulls are absent too." }),
+  keep_negative_poisson: z.stringbool().optional(),
+  ...fillFields,
+  ...limitFields,
+});
+export type ElasticArrowQuery = z.infer<typeof elasticArrowQuery>;

@@ -1,6 +1,6 @@
 import { Piscina } from "piscina";
 import { isProblemError, type ProblemSlug, type ProblemFieldError } from "../problems.js";
-import { columnJson, prepareColumnsAnswer, type AnswerParts } from "../elastic-columns.js";
+import { columnJson, prepareColumnsAnswer, type ColumnsBody, type PreparedAnswer } from "../elastic-columns.js";
 import { convertLogs, type LogsResult, type LogsTask } from "../logs-task.js";
 
 /** What crosses back from a worker: errors as data (class instances lose their prototype between threads). */
@@ -14,12 +14,13 @@ const transferring = <T extends object>(value: T, buffers: ArrayBufferLike[]) =>
   } as never) as unknown as T;
 
 /** Task `prepare`: parse, validate and compute a `POST /v1/elastic` body. */
-export function prepare({ bytes, maxSamples }: { bytes: Uint8Array; maxSamples: number }) {
+export function prepare({ body, maxSamples, format }: { body: ColumnsBody; maxSamples: number; format: "json" | "arrow" }) {
   try {
-    const answer: AnswerParts = prepareColumnsAnswer(bytes, maxSamples);
-    return transferring({ ok: answer } satisfies Outcome<AnswerParts>, answer.columns.map((column) => column.buffer));
+    const answer = prepareColumnsAnswer(body, maxSamples, format);
+    const buffers = answer.kind === "json" ? answer.columns.map((column) => column.buffer) : [answer.bytes.buffer];
+    return transferring({ ok: answer } satisfies Outcome<PreparedAnswer>, buffers);
   } catch (error) {
-    if (isProblemError(error)) return { problem: { slug: error.slug, detail: error.detail, errors: error.errors } } satisfies Outcome<AnswerParts>;
+    if (isProblemError(error)) return { problem: { slug: error.slug, detail: error.detail, errors: error.errors } } satisfies Outcome<PreparedAnswer>;
     throw error;
   }
 }

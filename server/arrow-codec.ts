@@ -1,0 +1,219 @@
+import {
+  Field,
+  Float64,
+  makeData,
+  Precision,
+  RecordBatch,
+  Schema,
+  Struct,
+  Table,
+  tableFromIPC,
+  tableToIPC,
+  Type,
+  Uint32,
+  util,
+  DataType,
+  type Data,
+} from "apache-arrow";
+import {
+  FLAG_CODES,
+  InputIssues,
+  MAX_LISTED_ISSUES,
+  severityOf,
+  summariseFlags,
+  type DepthUnit,
+  type ElasticLog,
+  type ElasticLogRequest,
+  type InputIssue,
+} from "../core/index.js";
+import type { UnitsChosen } from "./elastic-answer.js";
+import { OUTPUT_PROPERTIES } from "./output-properties.js";
+import { fromPlausibilityLimits } from "./schemas/limits.js";
+import { SERVICE_VERSION } from "./version.js";
+
+/** IANA media type of the Arrow IPC streaming format. */
+export const ARROW_STREAM_MEDIA_TYPE = "application/vnd.apache.arrow.stream";
+
+/** Columns an Arrow body may carry, named as in the JSON body of `POST /v1/elastic`. */
+export const ARROW_INPUT_COLUMNS = ["depth", "top", "base", "vp", "vs", "dtc", "dts", "rho"] as const;
+export type ArrowInputColumn = (typeof ARROW_INPUT_COLUMNS)[number];
+
+export interface ArrowColumns {
+  /** Rows of every column. */
+  samples: number;
+  /**
+   * The columns present, as float64 with NaN where Arrow held a null. A float64 column of a single
+   * record batch without nulls is a view on the decoded bytes (zero copy): do not reuse those bytes meanwhile.
+   */
+  columns: Partial<Record<ArrowInputColumn, Float64Array>>;
+}
+
+const ACCEPTED_TYPES = "float64 (or float32, float16, a signed or unsigned integer, or null)";
+const MAX_EXACT_INTEGER = 2 ** 53;
+
+const hasPrecision = (type: DataType, precision: Precision): boolean => DataType.isFloat(type) && type.precision === precision;
+
+const isAccepted = (type: DataType): boolean =>
+  type.typeId === Type.Float || type.typeId === Type.Int || type.typeId === Type.Null;
+
+const isInputColumn = (name: string): name is ArrowInputColumn => (ARROW_INPUT_COLUMNS as readonly string[]).includes(name);
+
+/** Every issue with the column names and types; an empty list when all can be read. */
+const schemaIssues = (fields: readonly Field[]): InputIssue[] => {
+  const issues: InputIssue[] = [];
+  const seen = new Set<string>();
+  for (const field of fields) {
+    if (!isInputColumn(field.name)) {
+      issues.push({ field: field.name, message: `is not a column of this request; the columns are ${ARROW_INPUT_COLUMNS.join(", ")}` });
+    } else if (seen.has(field.name)) {
+      issues.push({ field: field.name, message: "is given twice; give each column once" });
+    } else if (!isAccepted(field.type)) {
+      issues.push({ field: field.name, message: `has the Arrow type ${String(field.type)}; expected ${ACCEPTED_TYPES}` });
+    }
+    seen.add(field.name);
+  }
+  return issues;
+};
+
+/** 64-bit integers are read only when a double holds them exactly (|v| < 2^53 always does). */
+const copyWideIntegers = (values: BigInt64Array | BigUint64Array, target: Float64Array, at: number, name: string, issues: InputIssue[]) => {
+  for (let i = 0; i < values.length; i++) {
+    const value = Number(values[i]);
+    target[at + i] = value;
+    if (Math.abs(value) >= MAX_EXACT_INTEGER && BigInt(value) !== values[i] && issues.length < MAX_LISTED_ISSUES) {
+      issues.push({ field: name, index: at + i, message: `the integer ${values[i]} has no exact 64-bit float; send it as float64` });
+    }
+  }
+};
+
+/** Writes one record batch's chunk of a column into `target` from row `at`, exactly, nulls as NaN. */
+const copyChunk = (chunk: Data, target: Float64Array, at: number, name: string, issues: InputIssue[]) => {
+  const end = at + chunk.length;
+  if (chunk.type.typeId === Type.Null) {
+    target.fill(NaN, at, end);
+    return;
+  }
+  const values = chunk.values.subarray(chunk.offset, chunk.offset + chunk.length);
+  if (values instanceof BigInt64Array || values instanceof BigUint64Array) copyWideIntegers(values, target, at, name, issues);
+  else if (hasPrecision(chunk.type, Precision.HALF)) {
+    for (let i = 0; i < values.length; i++) target[at + i] = util.uint16ToFloat64(values[i]);
+  } else target.set(values, at);
+  if (chunk.nullCount > 0) {
+    const bitmap = chunk.nullBitmap as Uint8Array;
+    for (let i = 0; i < chunk.length; i++) {
+      const bit = chunk.offset + i;
+      if ((bitmap[bit >> 3] & (1 << (bit & 7))) === 0) target[at + i] = NaN;
+    }
+  }
+};
+
+const isPlainFloat64 = (chunk: Data): boolean => hasPrecision(chunk.type, Precision.DOUBLE) && chunk.nullCount === 0;
+
+const readColumn = (chunks: readonly Data[], samples: number, name: string, issues: InputIssue[]): Float64Array => {
+  if (chunks.length === 1 && isPlainFloat64(chunks[0])) {
+    const only = chunks[0];
+    return (only.values as Float64Array).subarray(only.offset, only.offset + only.length);
+  }
+  const column = new Float64Array(samples);
+  let at = 0;
+  for (const chunk of chunks) {
+    copyChunk(chunk, column, at, name, issues);
+    at += chunk.length;
+  }
+  return column;
+};
+
+const malformed = (message: string) => new InputIssues([{ field: "body", message }]);
+
+const readTable = (bytes: Uint8Array): Table => {
+  if (bytes.length === 0) throw malformed(`the body is empty; send an Arrow IPC stream (${ARROW_STREAM_MEDIA_TYPE})`);
+  let table: Table;
+  try {
+    table = tableFromIPC(bytes);
+  } catch (error) {
+    throw malformed(`the body is not a readable Arrow IPC stream (${(error as Error).message})`);
+  }
+  // The reader answers text or random bytes with an empty table rather than an error.
+  if (table.schema.fields.length === 0) {
+    throw malformed(`the body holds no Arrow IPC stream with columns; send one whose columns are named ${ARROW_INPUT_COLUMNS.join(", ")}`);
+  }
+  return table;
+};
+
+/**
+ * Reads an Arrow IPC stream (or file) of several record batches into float64 columns: every integer and
+ * float type is converted exactly, nulls become NaN. Unknown names, other types and unreadable bytes are `InputIssues`.
+ */
+export const decodeArrowColumns = (bytes: Uint8Array): ArrowColumns => {
+  const table = readTable(bytes);
+  const fields = table.schema.fields;
+  const nameIssues = schemaIssues(fields);
+  if (nameIssues.length > 0) throw new InputIssues(nameIssues.slice(0, MAX_LISTED_ISSUES));
+  const issues: InputIssue[] = [];
+  const columns: ArrowColumns["columns"] = {};
+  fields.forEach((field, index) => {
+    const chunks = table.getChildAt(index)?.data ?? [];
+    columns[field.name as ArrowInputColumn] = readColumn(chunks, table.numRows, field.name, issues);
+  });
+  if (issues.length > 0) throw new InputIssues(issues);
+  return { samples: table.numRows, columns };
+};
+
+const FLOAT64 = new Float64();
+const FLAG_MASK_TYPE = new Uint32();
+
+/** A float64 column whose NaNs are Arrow nulls; the values are shared, not copied. */
+const nullableFloat64 = (values: Float64Array): Data<Float64> => {
+  let nullCount = 0;
+  for (let i = 0; i < values.length; i++) if (Number.isNaN(values[i])) nullCount++;
+  if (nullCount === 0) return makeData({ type: FLOAT64, length: values.length, nullCount, data: values });
+  const nullBitmap = new Uint8Array((values.length + 7) >> 3);
+  for (let i = 0; i < values.length; i++) if (!Number.isNaN(values[i])) nullBitmap[i >> 3] |= 1 << (i & 7);
+  return makeData({ type: FLOAT64, length: values.length, nullCount, nullBitmap, data: values });
+};
+
+const unitMetadata = (unit: string) => new Map(unit === "" ? [] : [["elastilog.unit", unit]]);
+
+/**
+ * The answer of `POST /v1/elastic` as an Arrow IPC stream: the echoed depth, top and base, every property of
+ * `OUTPUT_PROPERTIES` in order as float64 (NaN as null, unit in the field metadata `elastilog.unit`), and `flags`,
+ * the uint32 QC bit mask of each sample. The schema metadata holds the bits, severities, units, limits, summary and
+ * service version as JSON text. Same arguments as `columnsAnswer`.
+ */
+export const encodeArrowAnswer = (
+  log: ElasticLog,
+  request: ElasticLogRequest,
+  units: UnitsChosen & { depth: DepthUnit },
+  echo: { depth?: Float64Array; top?: Float64Array; base?: Float64Array },
+): Uint8Array => {
+  const columns: { field: Field; data: Data }[] = [];
+  for (const name of ["depth", "top", "base"] as const) {
+    const values = echo[name];
+    if (values !== undefined) columns.push({ field: new Field(name, FLOAT64, true, unitMetadata(units.depth)), data: nullableFloat64(values) });
+  }
+  for (const property of OUTPUT_PROPERTIES) {
+    columns.push({
+      field: new Field(property.key, FLOAT64, true, unitMetadata(property.unit(units))),
+      data: nullableFloat64(property.column(log)),
+    });
+  }
+  columns.push({
+    field: new Field("flags", FLAG_MASK_TYPE, false),
+    data: makeData({ type: FLAG_MASK_TYPE, length: log.length, nullCount: 0, data: log.flags }),
+  });
+  const lambdaRho = OUTPUT_PROPERTIES.find((property) => property.key === "lambda_rho");
+  const metadata = new Map([
+    ["elastilog.version", SERVICE_VERSION],
+    ["elastilog.flag_bits", JSON.stringify(Object.fromEntries(FLAG_CODES.map((code, bit) => [String(bit), code])))],
+    ["elastilog.flag_severity", JSON.stringify(Object.fromEntries(FLAG_CODES.map((code) => [code, severityOf(code, log.invalidMask)])))],
+    ["elastilog.units", JSON.stringify({ ...units, lambda_rho: lambdaRho?.unit(units) })],
+    ["elastilog.limits", JSON.stringify(fromPlausibilityLimits(request.limits))],
+    ["elastilog.summary", JSON.stringify(summariseFlags(log.flags, log.invalidMask))],
+  ]);
+  const fields = columns.map((column) => column.field);
+  const batch = new RecordBatch(
+    new Schema(fields, metadata),
+    makeData({ type: new Struct(fields), length: log.length, nullCount: 0, children: columns.map((column) => column.data) }),
+  );
+  return tableToIPC(new Table(batch), "stream");
+};

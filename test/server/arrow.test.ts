@@ -1,0 +1,70 @@
+import { Float64, tableFromIPC, tableToIPC, Table, vectorFromArray } from "apache-arrow";
+import { describe, expect, it } from "vitest";
+import { FLAG_CODES } from "../../core/index.js";
+import { build } from "../helpers/build.js";
+
+const ARROW = "application/vnd.apache.arrow.stream";
+
+/** Columns of a fictional well with gaps (nulls) and a mispicked shear sample. */
+const COLUMNS = {
+  depth: [2100, 2100.1524, 2100.3048, 2100.4572, 2100.6096],
+  dtc: [92.5, null, 88.1, 95.0, 79.9],
+  dts: [166.0, 170.2, 120.0, 171.4, 143.3],
+  rho: [2.41, 2.43, 2.45, null, 2.52],
+};
+
+const arrowBody = (columns: Record<string, (number | null)[]>): Buffer =>
+  Buffer.from(tableToIPC(new Table(Object.fromEntries(Object.entries(columns).map(([name, values]) => [name, vectorFromArray(values, new Float64())]))), "stream"));
+
+describe("Apache Arrow IPC on POST /v1/elastic", () => {
+  it("the same columns posted as JSON and as Arrow give identical results, bit for bit, nulls and flags included", async () => {
+    const app = await build();
+    const json = (await app.inject({ method: "POST", url: "/v1/elastic", payload: COLUMNS })).json();
+    const response = await app.inject({ method: "POST", url: "/v1/elastic", payload: arrowBody(COLUMNS), headers: { "content-type": ARROW, accept: ARROW } });
+    expect(response.statusCode).toBe(200);
+    expect(response.headers["content-type"]).toBe(ARROW);
+    const table = tableFromIPC(response.rawPayload);
+    expect(table.numRows).toBe(5);
+    for (const key of ["depth", "E", "nu", "G", "K", "lambda", "M", "vp_vs", "p_impedance", "s_impedance", "lambda_rho", "mu_rho", "vp", "vs"]) {
+      const column = table.getChild(key);
+      expect(column, key).not.toBeNull();
+      const values = Array.from({ length: 5 }, (_, i) => column?.get(i) ?? null);
+      values.forEach((value, i) => expect(Object.is(value, json[key][i]), `${key}[${i}]: ${value} vs ${json[key][i]}`).toBe(true));
+    }
+    const masks = Array.from(table.getChild("flags")?.toArray() as Uint32Array);
+    const fromJson = [0, 0, 0, 0, 0];
+    for (const flag of json.flags) fromJson[flag.index] |= 1 << FLAG_CODES.indexOf(flag.code);
+    expect(masks).toEqual(fromJson);
+    const bits = JSON.parse(table.schema.metadata.get("elastilog.flag_bits") ?? "{}");
+    expect(bits["0"]).toBe("missing");
+    expect(JSON.parse(table.schema.metadata.get("elastilog.summary") ?? "{}")).toEqual(json.summary);
+  });
+
+  it("an Arrow body takes its options from the query string and may be answered in JSON", async () => {
+    const app = await build();
+    const response = await app.inject({
+      method: "POST",
+      url: "/v1/elastic?modulus_unit=Mpsi&slowness_unit=us/ft&keep_negative_poisson=true",
+      payload: arrowBody(COLUMNS),
+      headers: { "content-type": ARROW, accept: "application/json" },
+    });
+    expect(response.statusCode).toBe(200);
+    const answer = response.json();
+    expect(answer.units.modulus).toBe("Mpsi");
+    expect(answer.nu[2]).toBeLessThan(0); // DTS/DTC = 1.36 < √2, kept with keep_negative_poisson
+  });
+
+  it("refuses bad Arrow bytes, unknown column names, query options with a JSON body, and unwritable Accept values", async () => {
+    const app = await build();
+    const garbage = await app.inject({ method: "POST", url: "/v1/elastic", payload: Buffer.from("not arrow at all"), headers: { "content-type": ARROW } });
+    expect(garbage.statusCode).toBe(400);
+    expect(garbage.headers["content-type"]).toMatch(/^application\/problem\+json/);
+    const unknown = await app.inject({ method: "POST", url: "/v1/elastic", payload: arrowBody({ ...COLUMNS, VP: [1, 2, 3, 4, 5] }), headers: { "content-type": ARROW } });
+    expect(unknown.statusCode).toBe(400);
+    expect(JSON.stringify(unknown.json().errors)).toContain("VP");
+    const mixed = await app.inject({ method: "POST", url: "/v1/elastic?modulus_unit=MPa", payload: COLUMNS });
+    expect(mixed.statusCode).toBe(400);
+    const png = await app.inject({ method: "POST", url: "/v1/elastic", payload: COLUMNS, headers: { accept: "image/png" } });
+    expect(png.statusCode).toBe(406);
+  });
+});
