@@ -7,11 +7,11 @@ import { logsAnswer } from "./logs-answer.js";
 import { ProblemError, unusableData } from "./problems.js";
 import type { LogsQuery } from "./schemas/logs.js";
 import { convertWell } from "./well-conversion.js";
-import { csvChunks, lasChunks } from "./well-output.js";
+import { csvChunks, lasChunks, ndjsonChunks } from "./well-output.js";
 import { readWellFile } from "./well-upload.js";
 
 export type ZoneWithList = Zone & { correlations?: string[] };
-export type LogsFormat = "json" | "csv" | "las";
+export type LogsFormat = "json" | "csv" | "las" | "ndjson";
 
 export interface LogsTask {
   /** The file's bytes as received. */
@@ -67,11 +67,12 @@ export const convertLogs = async (task: LogsTask): Promise<LogsResult> => {
     const summary = summariseFlags(log.flags, log.invalidMask);
     if (format === "json") return { kind: "json", answer: { ...splitAtColumns(logsAnswer(conversion, zones, derived)), summary } };
     if (zones !== undefined) {
-      throw new ProblemError("invalid-request", "Zone statistics are part of the JSON answer: ask for format=json, or leave zones out for CSV and LAS.", [
+      throw new ProblemError("invalid-request", "Zone statistics are part of the JSON answer: ask for format=json, or leave zones out for CSV, LAS and NDJSON.", [
         { field: "query.zones", message: `not available with format ${format}` },
       ]);
     }
-    return { kind: "text", pieces: gather(format === "csv" ? csvChunks(conversion, derived) : lasChunks(conversion, derived)), summary };
+    const writers = { csv: csvChunks, las: lasChunks, ndjson: ndjsonChunks };
+    return { kind: "text", pieces: gather(writers[format](conversion, derived)), summary };
   } catch (error) {
     if (isWellFileError(error)) {
       throw new ProblemError("unreadable-file", `The well file cannot be read: ${error.message}.`, [

@@ -1,5 +1,6 @@
 import {
   FLAGS,
+  flagCodesOf,
   type DerivedColumn,
   lasCurvesOf,
   writeCsv,
@@ -136,3 +137,29 @@ export const lasChunks = (conversion: WellConversion, derived: Map<string, Deriv
     otherLines: [...qcLegend(conversion), ...caution],
   });
 };
+
+/**
+ * One JSON object per sample and line (NDJSON, application/x-ndjson) for line-oriented pipelines: the row
+ * index, the depth when there is one, every property (null where invalid), each derived estimate by its id,
+ * and the sample's flag codes.
+ */
+export function* ndjsonChunks(conversion: WellConversion, derived: Map<string, DerivedColumn> | undefined): Generator<string> {
+  const { log, depth } = conversion;
+  const columns = OUTPUT_PROPERTIES.map((property) => [property.key, property.column(log)] as const);
+  const estimates = derivedList(derived).map((column) => [column.correlation.id, column.values] as const);
+  const nullable = (value: number) => (Number.isNaN(value) ? null : value);
+  let chunk = "";
+  for (let i = 0; i < log.length; i++) {
+    const row: Record<string, unknown> = { index: i };
+    if (depth !== undefined) row.depth = nullable(depth[i]);
+    for (const [key, column] of columns) row[key] = nullable(column[i]);
+    for (const [id, values] of estimates) row[id] = nullable(values[i]);
+    row.flags = flagCodesOf(log.flags[i]);
+    chunk += `${JSON.stringify(row)}\n`;
+    if (chunk.length >= 64 * 1024) {
+      yield chunk;
+      chunk = "";
+    }
+  }
+  if (chunk !== "") yield chunk;
+}

@@ -20,7 +20,12 @@ export interface LogsRouteOptions {
 /** Content types curl and scripts send a raw file with; the body is read as a stream, whatever the label. */
 export const RAW_FILE_TYPES = ["text/plain", "text/csv", "application/octet-stream", "application/x-www-form-urlencoded", "application/x-las"];
 
-const MEDIA_TYPES = { json: "application/json", csv: "text/csv", las: "application/x-las" } as const;
+const MEDIA_TYPES = { json: "application/json", csv: "text/csv", las: "application/x-las", ndjson: "application/x-ndjson" } as const;
+const CONTENT_TYPES: Record<Exclude<Format, "json">, string> = {
+  csv: "text/csv; charset=utf-8; header=present",
+  las: "application/x-las; charset=utf-8",
+  ndjson: "application/x-ndjson; charset=utf-8",
+};
 type Format = keyof typeof MEDIA_TYPES;
 
 
@@ -28,7 +33,7 @@ const chooseFormat = (query: LogsQuery, accept: string | undefined): Format => {
   if (query.format !== undefined) return query.format;
   const chosen = negotiateMediaType(accept, Object.values(MEDIA_TYPES));
   if (chosen === undefined) {
-    throw new ProblemError("not-acceptable", `Accept "${accept}" names no format this endpoint writes: application/json, text/csv or application/x-las (or use format=json|csv|las).`);
+    throw new ProblemError("not-acceptable", `Accept "${accept}" names no format this endpoint writes: application/json, text/csv, application/x-las or application/x-ndjson (or use format=json|csv|las|ndjson).`);
   }
   return (Object.keys(MEDIA_TYPES) as Format[]).find((format) => MEDIA_TYPES[format] === chosen) as Format;
 };
@@ -132,6 +137,7 @@ export default async function logsRoutes(instance: FastifyInstance, options: Log
               "application/json": { schema: logsJsonResponse },
               "text/csv": { schema: z.string().meta({ description: "RFC 4180 CSV: the input columns, then EL_* computed columns and the EL_QC flag bit mask, header NAME[unit]." }) },
               "application/x-las": { schema: z.string().meta({ description: "LAS 2.0: the input header and curves kept, EL_* curves appended, options in ~Parameter, EL_QC bits in ~Other." }) },
+              "application/x-ndjson": { schema: z.string().meta({ description: "One JSON object per sample and line: index, depth, every property (null where invalid), derived estimates by id, and flags (codes)." }) },
             },
           },
           ...commonProblemResponses,
@@ -159,7 +165,7 @@ export default async function logsRoutes(instance: FastifyInstance, options: Log
       if (result.kind === "json") return sendAnswer(reply, result.answer, app.answerPool);
       const body = Readable.from(result.pieces.map((piece) => Buffer.from(piece.buffer, piece.byteOffset, piece.byteLength)));
       // The type provider types reply bodies from the JSON schema; a stream of text is sent as it is.
-      return reply.type(format === "csv" ? "text/csv; charset=utf-8; header=present" : "application/x-las; charset=utf-8").send(body as unknown as string);
+      return reply.type(CONTENT_TYPES[format as Exclude<Format, "json">]).send(body as unknown as string);
     },
   );
 }

@@ -19,7 +19,10 @@ export const logsQuery = z.strictObject({
   vs_unit: unitSpelling("shear", "us/ft, US/F, km/s"),
   rho_unit: unitSpelling("density", "g/cm3, G/C3, kg/m3"),
   depth_unit: unitSpelling("depth", "m, FT"),
-  format: z.enum(["json", "csv", "las"]).optional().meta({ description: "Answer format; overrides Accept (application/json, text/csv, application/x-las)." }),
+  format: z
+    .enum(["json", "csv", "las", "ndjson"])
+    .optional()
+    .meta({ description: "Answer format; overrides Accept (application/json, text/csv, application/x-las, application/x-ndjson)." }),
   modulus_unit: modulusUnit.default(DEFAULT_UNITS.modulus),
   velocity_unit: velocityUnit.default(DEFAULT_UNITS.velocity).meta({ description: "Unit of the vp and vs columns of the answer." }),
   impedance_unit: impedanceUnit.default(DEFAULT_UNITS.impedance),

@@ -265,3 +265,18 @@ describe("POST /v1/elastic with zones", () => {
     expect(response.json().errors[0].field).toBe("body.zones");
   });
 });
+
+describe("NDJSON answers", () => {
+  it("format=ndjson (or Accept: application/x-ndjson) gives one JSON object per input row, in order, with flags by code", async () => {
+    const response = await upload(SMALL_CSV, "", { "content-type": "text/csv", accept: "application/x-ndjson" });
+    expect(response.statusCode).toBe(200);
+    expect(response.headers["content-type"]).toMatch(/^application\/x-ndjson/);
+    const lines = response.body.trimEnd().split("\n").map((line) => JSON.parse(line));
+    expect(lines).toHaveLength(4);
+    expect(lines.map((line) => line.index)).toEqual([0, 1, 2, 3]);
+    expect(lines[0].depth).toBe(1000);
+    expect(lines[0].nu).toBeCloseTo(1 / 3, 14);
+    expect(lines[2]).toMatchObject({ E: null, flags: ["missing"] });
+    expect(lines[3].flags).toEqual(["vp_vs_below_sqrt2"]);
+  });
+});
