@@ -59,7 +59,8 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
     connectionTimeout: config.connectionTimeoutMs,
     keepAliveTimeout: config.keepAliveTimeoutMs,
     requestTimeout: config.requestTimeoutMs,
-    logController: new LogController({ requestIdLogLabel: "request_id" }),
+    // One line per request, written when it ends (below), instead of Fastify's two: half the logging cost.
+    logController: new LogController({ requestIdLogLabel: "request_id", disableRequestLogging: true }),
     genReqId: (request) => {
       const given = request.headers["x-request-id"];
       return typeof given === "string" && REQUEST_ID.test(given) ? given : randomUUID();
@@ -87,6 +88,12 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
   app.setSerializerCompiler(() => (data) => JSON.stringify(data));
   app.addHook("onSend", async (request, reply) => {
     reply.header("x-request-id", request.id);
+  });
+  app.addHook("onResponse", async (request, reply) => {
+    request.log.info(
+      { method: request.method, url: request.url, status: reply.statusCode, ms: Math.round(reply.elapsedTime * 10) / 10 },
+      "request completed",
+    );
   });
 
   await app.register(swagger, {
