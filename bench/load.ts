@@ -1,0 +1,222 @@
+/**
+ * `npm run load`: puts the compiled service under a bounded load on 127.0.0.1 and prints a Markdown table:
+ * a mix of single-point GETs and 10,000-sample POSTs at 50 connections for 20 s; /livez latency while one
+ * 1,000,000-sample POST is converted; resident memory at the start, after a warm-up and after 100,000 requests.
+ * Never part of `npm test`. Every phase is bounded in count and in time; the script stops by itself.
+ * The samples are the demonstration well Kestrel Flats 3 (examples/demo-well.csv), repeated to the size needed.
+ */
+import { execFileSync } from "node:child_process";
+import { readFileSync } from "node:fs";
+import { cpus } from "node:os";
+import { join } from "node:path";
+import autocannon from "autocannon";
+import { Agent, Pool, request } from "undici";
+import { parseCsv } from "../core/index.js";
+import { freePort, residentMegabytes, root, start, stop } from "./processes.js";
+import { milliseconds, yesOrNo } from "./report.js";
+
+const MIX_CONNECTIONS = 50;
+const MIX_SECONDS = 20;
+const MIX_POST_SAMPLES = 10_000;
+const WHOLE_WELL_SAMPLES = 1_000_000;
+const WARM_UP_REQUESTS = 10_000;
+const SOAK_REQUESTS = 100_000;
+/** Upper bounds in time, so that a slow or stuck service cannot keep the script running. */
+const WHOLE_WELL_LIMIT_MS = 180_000;
+const PROBE_INTERVAL_MS = 20;
+const SOAK_LIMIT_MS = 600_000;
+
+const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
+
+/** DTC, DTS and RHOB of the demonstration well; empty cells (not logged) become null in JSON. */
+const demoWell = () => {
+  const { table } = parseCsv(readFileSync(join(root, "examples/demo-well.csv"), "utf8"));
+  const column = (mnemonic: string) => {
+    const index = table.curves.findIndex((curve) => curve.mnemonic === mnemonic);
+    if (index < 0) throw new Error(`examples/demo-well.csv has no ${mnemonic} column`);
+    return Array.from(table.columns[index], (value) => (Number.isNaN(value) ? null : value));
+  };
+  return { dtc: column("DTC"), dts: column("DTS"), rho: column("RHOB") };
+};
+
+const well = demoWell();
+const STEP_METRES = 0.1524;
+
+/** A POST /v1/elastic body of `samples` rows: the demonstration well repeated, with depth running on. */
+const columnsBody = (samples: number): string => {
+  const pick = (column: (number | null)[]) => Array.from({ length: samples }, (_, i) => column[i % column.length]);
+  const depth = Array.from({ length: samples }, (_, i) => Math.round((1450 + i * STEP_METRES) * 1e4) / 1e4);
+  return JSON.stringify({ depth, dtc: pick(well.dtc), dts: pick(well.dts), rho: pick(well.rho) });
+};
+
+/** Single-point GETs at three depths of the well where all three logs are present, and one POST of `postSamples`. */
+const mixedRequests = (postSamples: number): autocannon.Request[] => {
+  const complete = well.dtc.flatMap((dtc, i) => (dtc !== null && well.dts[i] !== null && well.rho[i] !== null ? [i] : []));
+  const points = [0.2, 0.5, 0.8].map((share) => complete[Math.floor(share * complete.length)]);
+  return [
+    ...points.map((i) => ({ method: "GET" as const, path: `/v1/elastic?dtc=${well.dtc[i]}&dts=${well.dts[i]}&rho=${well.rho[i]}` })),
+    { method: "POST", path: "/v1/elastic", headers: { "content-type": "application/json" }, body: columnsBody(postSamples) },
+  ];
+};
+
+/** Runs autocannon, stopping it after `limitMs` whatever its own options say, and resolves with its result. */
+const cannon = (options: autocannon.Options, limitMs: number) => {
+  let instance: autocannon.Instance | undefined;
+  const done = new Promise<autocannon.Result>((resolve, reject) => {
+    instance = autocannon(options, (error: unknown, result: autocannon.Result) => (error ? reject(error) : resolve(result)));
+  });
+  const bound = setTimeout(() => instance?.stop(), limitMs);
+  return done.finally(() => clearTimeout(bound));
+};
+
+interface Row {
+  measure: string;
+  value: string;
+  target: string;
+  met: string;
+}
+
+const megabytes = (value: number) => `${value.toFixed(1)} MB`;
+
+const measureMemory = async (base: string, pid: number): Promise<Row[]> => {
+  const atStart = residentMegabytes(pid, "VmRSS");
+  const requests = mixedRequests(100);
+  const warmUp = await cannon({ url: base, connections: 10, amount: WARM_UP_REQUESTS, requests }, SOAK_LIMIT_MS);
+  const afterWarmUp = residentMegabytes(pid, "VmRSS");
+  const soak = await cannon({ url: base, connections: 10, amount: SOAK_REQUESTS, requests }, SOAK_LIMIT_MS);
+  const afterSoak = residentMegabytes(pid, "VmRSS");
+  const answered = soak["2xx"] + soak.non2xx;
+  const growth = afterSoak / afterWarmUp - 1;
+  return [
+    { measure: "RSS at the start (idle, just listening)", value: megabytes(atStart), target: "—", met: "—" },
+    { measure: `RSS after a warm-up of ${(warmUp["2xx"] + warmUp.non2xx).toLocaleString("en")} requests (3 GETs : 1 POST of 100 samples, 10 connections)`, value: megabytes(afterWarmUp), target: "—", met: "—" },
+    {
+      measure: `RSS after ${answered.toLocaleString("en")} more requests of the same mix${answered < SOAK_REQUESTS ? " (stopped at the time bound)" : ""}`,
+      value: `${megabytes(afterSoak)} (${growth >= 0 ? "+" : ""}${(growth * 100).toFixed(1)} % over the warm-up)`,
+      target: "growth < 10 %",
+      met: yesOrNo(growth < 0.1 && answered >= SOAK_REQUESTS),
+    },
+  ];
+};
+
+/** The non-2xx answers by status code, e.g. ` (503 × 12)`, so that load shedding is told apart from failures. */
+const byStatus = (result: autocannon.Result): string => {
+  const counts = Object.entries(result.statusCodeStats ?? {}).filter(([code]) => !code.startsWith("2"));
+  return counts.length === 0 ? "" : ` (${counts.map(([code, stats]) => `${code} × ${stats.count ?? 0}`).join(", ")})`;
+};
+
+const measureMix = async (base: string): Promise<Row[]> => {
+  const result = await cannon(
+    { url: base, connections: MIX_CONNECTIONS, duration: MIX_SECONDS, requests: mixedRequests(MIX_POST_SAMPLES) },
+    (MIX_SECONDS + 30) * 1000,
+  );
+  const what = `3 single-point GETs : 1 POST of ${MIX_POST_SAMPLES.toLocaleString("en")} samples, ${MIX_CONNECTIONS} connections, ${MIX_SECONDS} s`;
+  return [
+    { measure: `Mixed load (${what}): requests per second`, value: result.requests.average.toFixed(0), target: "—", met: "—" },
+    { measure: "Mixed load: p50 latency", value: milliseconds(result.latency.p50), target: "—", met: "—" },
+    { measure: "Mixed load: p99 latency", value: milliseconds(result.latency.p99), target: "—", met: "—" },
+    {
+      measure: `Mixed load: non-2xx answers, errors and timeouts (of ${(result["2xx"] + result.non2xx).toLocaleString("en")} answers)`,
+      value: `${result.non2xx}${byStatus(result)}, ${result.errors}, ${result.timeouts}`,
+      target: "0, 0, 0",
+      met: yesOrNo(result.non2xx === 0 && result.errors === 0 && result.timeouts === 0),
+    },
+  ];
+};
+
+const percentile = (sorted: number[], share: number): number => sorted[Math.min(sorted.length - 1, Math.ceil(share * sorted.length) - 1)] ?? Number.NaN;
+
+/**
+ * Probes /livez every PROBE_INTERVAL_MS until `stopped` resolves, and measures each probe from the moment it was
+ * due, not from when it could be sent: a closed-loop client (one connection waiting for each answer) would send
+ * a single probe during a long stall and hide it in the percentiles (coordinated omission).
+ */
+const probeOpenLoop = async (base: string, stopped: Promise<unknown>) => {
+  const pool = new Pool(base, { connections: 64 });
+  const latencies: number[] = [];
+  let failures = 0;
+  let running = true;
+  const finish = () => (running = false);
+  void stopped.then(finish, finish);
+  const pending: Promise<void>[] = [];
+  const started = performance.now();
+  for (let n = 0; running && n < WHOLE_WELL_LIMIT_MS / PROBE_INTERVAL_MS; n++) {
+    const due = started + n * PROBE_INTERVAL_MS;
+    await sleep(Math.max(0, due - performance.now()));
+    pending.push(
+      pool.request({ method: "GET", path: "/livez" }).then(
+        async (answer) => {
+          await answer.body.dump();
+          if (answer.statusCode === 200) latencies.push(performance.now() - due);
+          else failures++;
+        },
+        () => void failures++,
+      ),
+    );
+  }
+  await Promise.all(pending);
+  await pool.close();
+  latencies.sort((a, b) => a - b);
+  return { latencies, failures };
+};
+
+const measureProbeDuringWholeWell = async (base: string): Promise<Row[]> => {
+  const body = columnsBody(WHOLE_WELL_SAMPLES);
+  const agent = new Agent({ headersTimeout: WHOLE_WELL_LIMIT_MS, bodyTimeout: WHOLE_WELL_LIMIT_MS });
+  const started = performance.now();
+  const conversion = (async () => {
+    const answer = await request(`${base}/v1/elastic`, { method: "POST", headers: { "content-type": "application/json" }, body, dispatcher: agent });
+    let answerBytes = 0;
+    for await (const chunk of answer.body) answerBytes += (chunk as Buffer).length;
+    return { status: answer.statusCode, answerBytes, seconds: (performance.now() - started) / 1000 };
+  })();
+  const [converted, probes] = await Promise.all([conversion.finally(() => agent.close()), probeOpenLoop(base, conversion)]);
+  const { latencies, failures } = probes;
+  return [
+    {
+      measure: `One POST of ${WHOLE_WELL_SAMPLES.toLocaleString("en")} samples (${(body.length / 2 ** 20).toFixed(0)} MiB in, ${(converted.answerBytes / 2 ** 20).toFixed(0)} MiB out)`,
+      value: `${converted.status} in ${converted.seconds.toFixed(1)} s`,
+      target: "200",
+      met: yesOrNo(converted.status === 200),
+    },
+    {
+      measure: `/livez p99 latency meanwhile (a probe every ${PROBE_INTERVAL_MS} ms, ${latencies.length} answered, ${failures} failed; p50 ${milliseconds(percentile(latencies, 0.5))}, max ${milliseconds(latencies.at(-1) ?? Number.NaN)})`,
+      value: milliseconds(percentile(latencies, 0.99)),
+      target: "< 100 ms",
+      met: yesOrNo(percentile(latencies, 0.99) < 100 && failures === 0),
+    },
+  ];
+};
+
+const main = async () => {
+  execFileSync("npx", ["tsc", "-p", "tsconfig.build.json"], { cwd: root, stdio: "inherit" });
+  const port = await freePort();
+  const base = `http://127.0.0.1:${port}`;
+  // API_KEYS empty: the load measures the service, not a deployment's keys.
+  const service = await start("load", ["dist/server/main.js"], { PORT: String(port), HOST: "127.0.0.1", LOG_LEVEL: "info", API_KEYS: "" }, /Server listening/);
+  let rows: Row[];
+  try {
+    // Memory first, while the heap has seen nothing larger than the mix; printed last, in the order of issue 5.
+    const memory = await measureMemory(base, service.pid as number);
+    const mix = await measureMix(base);
+    const probe = await measureProbeDuringWholeWell(base);
+    rows = [...mix, ...probe, ...memory];
+  } finally {
+    await stop(service);
+  }
+  const cpu = cpus();
+  console.log(
+    [
+      "# Load",
+      "",
+      `\`npm run load\` on ${new Date().toISOString().slice(0, 10)}: Node ${process.version}, ${cpu.length} × ${cpu[0]?.model ?? "unknown CPU"}; the compiled service and the load generator share this machine, on 127.0.0.1.`,
+      "",
+      "| measure | value | target | met |",
+      "| --- | --- | --- | --- |",
+      ...rows.map((row) => `| ${row.measure} | ${row.value} | ${row.target} | ${row.met} |`),
+      "",
+    ].join("\n"),
+  );
+};
+
+await main();

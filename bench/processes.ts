@@ -1,0 +1,76 @@
+/** Starting, watching and stopping the processes the benchmark measures; everything on 127.0.0.1, every wait bounded. */
+import { spawn, type ChildProcess } from "node:child_process";
+import { openSync, readFileSync } from "node:fs";
+import { createServer } from "node:net";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+
+export const root = new URL("..", import.meta.url).pathname;
+
+const STARTUP_LIMIT_MS = 30_000;
+const SHUTDOWN_LIMIT_MS = 30_000;
+
+export const freePort = (): Promise<number> =>
+  new Promise((resolve) => {
+    const server = createServer();
+    server.listen(0, "127.0.0.1", () => {
+      const port = (server.address() as { port: number }).port;
+      server.close(() => resolve(port));
+    });
+  });
+
+const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
+
+/**
+ * Starts a process whose stdout goes to a file, as a log shipper would take it: a pipe read by this
+ * (busy) process would block the server's synchronous log writes and distort the numbers.
+ */
+export const start = async (label: string, args: string[], env: Record<string, string>, ready: RegExp): Promise<ChildProcess> => {
+  const logFile = join(tmpdir(), `elastilog-bench-${process.pid}-${label}.log`);
+  const child = spawn("node", args, { cwd: root, env: { ...process.env, ...env }, stdio: ["ignore", openSync(logFile, "w"), "inherit"] });
+  let exitCode: number | null | undefined;
+  child.once("exit", (code) => (exitCode = code));
+  for (let waited = 0; !ready.test(readFileSync(logFile, "utf8")); waited += 50) {
+    if (exitCode !== undefined) throw new Error(`${label} exited with ${exitCode} while starting`);
+    if (waited > STARTUP_LIMIT_MS) {
+      child.kill("SIGKILL");
+      throw new Error(`${label} did not start within ${STARTUP_LIMIT_MS} ms`);
+    }
+    await sleep(50);
+  }
+  return child;
+};
+
+const SETTLE_LIMIT_MS = 30_000;
+
+/**
+ * Waits until the service takes new work again: after a whole-well request its load shedding (event-loop delay
+ * above its limit) refuses requests for a sampling interval or two, which would otherwise count against the next case.
+ */
+export const settle = async (base: string): Promise<void> => {
+  for (let waited = 0; waited <= SETTLE_LIMIT_MS; waited += 250) {
+    const response = await fetch(`${base}/v1/elastic?dtc=95&dts=170&rho=2.45`);
+    await response.arrayBuffer();
+    if (response.status !== 503) return;
+    await sleep(250);
+  }
+  throw new Error(`the service still refused work (503) after ${SETTLE_LIMIT_MS} ms`);
+};
+
+/** SIGTERM, then SIGKILL if the process has not exited within the limit. */
+export const stop = async (child: ChildProcess): Promise<void> => {
+  if (child.exitCode !== null || child.signalCode !== null) return;
+  const exited = new Promise((resolve) => child.once("exit", resolve));
+  child.kill("SIGTERM");
+  const timer = setTimeout(() => child.kill("SIGKILL"), SHUTDOWN_LIMIT_MS);
+  await exited;
+  clearTimeout(timer);
+};
+
+/** A size line of /proc/<pid>/status (VmHWM: peak resident set, VmRSS: current; written in KiB), in MB of 10^6 bytes. */
+export const residentMegabytes = (pid: number, line: "VmHWM" | "VmRSS"): number => {
+  const status = readFileSync(`/proc/${pid}/status`, "utf8");
+  const kibibytes = new RegExp(`^${line}:\\s+(\\d+) kB`, "m").exec(status)?.[1];
+  if (kibibytes === undefined) throw new Error(`/proc/${pid}/status has no ${line} line`);
+  return (Number(kibibytes) * 1024) / 1e6;
+};
