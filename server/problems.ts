@@ -117,7 +117,7 @@ export const unusableData = (message: string, issues: readonly { field: string; 
   new ProblemError(
     "invalid-request",
     `The request's data cannot be used: ${message}.`,
-    issues.map((issue) => ({ ...issue, field: `${prefix}.${issue.field}` })),
+    issues.map((issue) => ({ ...issue, field: issue.field === prefix ? prefix : `${prefix}.${issue.field}` })),
   );
 
 export const UNKNOWN_FIELD_MESSAGE = "unknown field; see /openapi.yaml for the accepted fields (names are lower case)";

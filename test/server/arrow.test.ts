@@ -59,6 +59,7 @@ describe("Apache Arrow IPC on POST /v1/elastic", () => {
     const garbage = await app.inject({ method: "POST", url: "/v1/elastic", payload: Buffer.from("not arrow at all"), headers: { "content-type": ARROW } });
     expect(garbage.statusCode).toBe(400);
     expect(garbage.headers["content-type"]).toMatch(/^application\/problem\+json/);
+    expect(garbage.json().errors[0].field).toBe("body");
     const unknown = await app.inject({ method: "POST", url: "/v1/elastic", payload: arrowBody({ ...COLUMNS, VP: [1, 2, 3, 4, 5] }), headers: { "content-type": ARROW } });
     expect(unknown.statusCode).toBe(400);
     expect(JSON.stringify(unknown.json().errors)).toContain("VP");
