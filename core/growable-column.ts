@@ -1,4 +1,5 @@
-const INITIAL_CAPACITY = 1024;
+/** Small on purpose: a file may have a hundred thousand columns of three rows; doubling makes long columns cheap anyway. */
+const INITIAL_CAPACITY = 16;
 
 /** A Float64Array that grows by doubling as values are appended, trimmed when taken. */
 export class GrowableColumn {

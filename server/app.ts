@@ -11,6 +11,7 @@ import { AnswerPool } from "./answer-pool.js";
 import { DEFAULT_CONFIG, type ServiceConfig } from "./config.js";
 import { transformObject } from "./openapi-components.js";
 import { authentication } from "./plugins/authentication.js";
+import { clientErrorHandler } from "./plugins/client-errors.js";
 import { crossOrigin } from "./plugins/cross-origin.js";
 import { loadShedding } from "./plugins/load-shedding.js";
 import { metrics } from "./plugins/metrics.js";
@@ -65,6 +66,10 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
       const given = request.headers["x-request-id"];
       return typeof given === "string" && REQUEST_ID.test(given) ? given : randomUUID();
     },
+    // Node checks header and request timeouts on a timer of its own, every 30 s by default: check often enough
+    // that HEADERS_TIMEOUT_MS cuts a client trickling its headers off in time.
+    http: { connectionsCheckingInterval: Math.max(100, Math.min(1000, Math.floor(config.headersTimeoutMs / 4))) },
+    clientErrorHandler,
     onProtoPoisoning: "error",
     onConstructorPoisoning: "error",
   }).withTypeProvider<ZodTypeProvider>();

@@ -17,17 +17,28 @@ const lineAndColumn = (text: string, offset: number): string => {
  * keys) but keeps the reason as a problem: Fastify's default parser replaces every syntax error with one
  * generic message.
  */
+/** True when some object in the value has an own key `constructor` (secure-json-parse refuses only `constructor.prototype`). */
+const hasConstructorKey = (value: unknown): boolean => {
+  if (value === null || typeof value !== "object") return false;
+  if (Array.isArray(value)) return value.some(hasConstructorKey);
+  return Object.hasOwn(value, "constructor") || Object.values(value).some(hasConstructorKey);
+};
+
+const FORBIDDEN_KEY = "The JSON body contains a key named __proto__ or constructor, which is refused; remove it.";
+
 export const parseJsonText = (text: string): unknown => {
   if (text.length === 0) throw new ProblemError("malformed-body", "The body is empty; send a JSON object (see /openapi.yaml).");
+  let value: unknown;
   try {
-    return secureJson.parse(text, undefined, { protoAction: "error", constructorAction: "error" });
+    value = secureJson.parse(text, undefined, { protoAction: "error", constructorAction: "error" });
   } catch (error) {
     const message = (error as Error).message;
-    if (/forbidden prototype property/i.test(message)) {
-      throw new ProblemError("forbidden-key", "The JSON body contains a key named __proto__ or constructor, which is refused; remove it.");
-    }
+    if (/forbidden prototype property/i.test(message)) throw new ProblemError("forbidden-key", FORBIDDEN_KEY);
     const position = /position (\d+)/.exec(message);
     const where = position ? ` (at ${lineAndColumn(text, Number(position[1]))})` : "";
     throw new ProblemError("malformed-body", `The body is not valid JSON${where}: ${message}.`);
   }
+  // The walk runs only when the text names the key at all, so column bodies of numbers pay one substring search.
+  if (text.includes('"constructor"') && hasConstructorKey(value)) throw new ProblemError("forbidden-key", FORBIDDEN_KEY);
+  return value;
 };

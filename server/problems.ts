@@ -25,9 +25,19 @@ export const PROBLEM_KINDS = {
   },
   "not-found": { status: 404, title: "No such resource", fix: "Check the path against /openapi.yaml or /docs." },
   "method-not-allowed": { status: 405, title: "Method not allowed on this path", fix: "Use one of the methods listed in the Allow header." },
+  "request-timeout": {
+    status: 408,
+    title: "The request did not arrive in time",
+    fix: "Send the request line, headers and body without pauses; the limits are HEADERS_TIMEOUT_MS and REQUEST_TIMEOUT_MS (see README).",
+  },
   "body-too-large": { status: 413, title: "The body is too large", fix: "Send fewer samples per request, or raise the service's body limit (see README, Limits)." },
   "too-many-samples": { status: 413, title: "Too many samples in one request", fix: "Split the well into requests of at most the stated number of samples." },
   "unsupported-media-type": { status: 415, title: "Unsupported content type", fix: "Send the body with one of the content types this endpoint accepts (see /openapi.yaml)." },
+  "header-too-large": {
+    status: 431,
+    title: "The request headers are too large",
+    fix: "Send shorter headers (a long query string belongs in a POST body).",
+  },
   "unreadable-file": {
     status: 422,
     title: "The well file cannot be read",

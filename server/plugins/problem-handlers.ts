@@ -71,6 +71,11 @@ export const installProblemHandlers = (
       const problem = invalidFields(validationErrors(error));
       return send(reply, problem.slug, problem.detail, problem.errors);
     }
+    if (error.code === "ECONNRESET" || request.raw.aborted || request.raw.socket?.destroyed) {
+      // The client went away mid-request (an aborted upload): nothing failed here and nobody is left to answer.
+      request.log.info({ code: error.code }, "client closed the connection before the answer");
+      return reply;
+    }
     // Checked on `unknown`: a FastifyError fits the WellFileError shape, which would defeat the type guard.
     const failure: unknown = error;
     if (isWellFileError(failure)) {
@@ -85,7 +90,12 @@ export const installProblemHandlers = (
     const slug = error.code === undefined ? undefined : FASTIFY_CODES[error.code];
     if (slug === "unsupported-media-type") {
       const given = request.headers["content-type"] ?? "none";
-      return send(reply, slug, `${request.method} ${request.routeOptions.url ?? request.url} does not accept the content type "${given}"; send application/json (see /openapi.yaml for what each endpoint accepts).`);
+      const accepted = (request.routeOptions.config as { accepts?: readonly string[] } | undefined)?.accepts;
+      return send(
+        reply,
+        slug,
+        `${request.method} ${request.routeOptions.url ?? request.url} does not accept the content type "${given}"; send ${accepted?.join(", ") ?? "one of the types listed in /openapi.yaml"}.`,
+      );
     }
     if (slug === "body-too-large") {
       return send(reply, slug, `The body is larger than this endpoint's limit of ${limits.bodyLimitBytes} bytes. Send fewer samples per request, or ask the operator to raise JSON_BODY_LIMIT_BYTES.`);

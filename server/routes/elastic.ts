@@ -98,6 +98,7 @@ export default async function elasticRoutes(instance: FastifyInstance, options: 
           ...commonProblemResponses,
         },
       },
+      config: { accepts: [JSON_MEDIA_TYPE, ARROW_STREAM_MEDIA_TYPE] },
       // The body schema documents the contract; the body is validated with it in prepareColumnsAnswer, on a
       // worker thread when large, so a big body is parsed and checked off the event loop.
       validatorCompiler: ({ httpPart, schema }) => (httpPart === "body" ? (data: unknown) => ({ value: data }) : validatorCompiler({ schema } as never)),

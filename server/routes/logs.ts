@@ -65,6 +65,17 @@ const zonesFromPart = (value: unknown): ZoneWithList[] => {
 
 /** The well file and zones of a multipart upload: exactly one file part, optionally a `zones` part. */
 const readMultipart = async (request: FastifyRequest, byteLimit: number): Promise<{ chunks: Buffer[]; zones?: ZoneWithList[] }> => {
+  try {
+    return await readMultipartParts(request, byteLimit);
+  } catch (error) {
+    const status = (error as { statusCode?: number }).statusCode;
+    if (error instanceof ProblemError || (status !== undefined && status < 500)) throw error;
+    // busboy's own errors (no boundary, a body cut before its closing boundary) are a malformed request, not a fault.
+    throw new ProblemError("malformed-body", `The multipart/form-data body could not be read: ${(error as Error).message}.`);
+  }
+};
+
+const readMultipartParts = async (request: FastifyRequest, byteLimit: number): Promise<{ chunks: Buffer[]; zones?: ZoneWithList[] }> => {
   let file: Buffer[] | undefined;
   let zones: ZoneWithList[] | undefined;
   for await (const part of request.parts()) {
@@ -117,6 +128,7 @@ export default async function logsRoutes(instance: FastifyInstance, options: Log
   app.post(
     "/v1/logs",
     {
+      config: { accepts: [...RAW_FILE_TYPES, "multipart/form-data"] },
       schema: {
         tags: ["wells"],
         summary: "Convert a whole well: a LAS 2.0 or CSV file in, JSON, CSV or LAS out.",
