@@ -93,6 +93,9 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
   app.setSerializerCompiler(() => (data) => JSON.stringify(data));
   app.addHook("onSend", async (request, reply) => {
     reply.header("x-request-id", request.id);
+    // While shutting down, answers in flight close their connection: a keep-alive client (a load balancer)
+    // would otherwise hold it open past the grace period, and close() waits for every connection.
+    if (app.shuttingDown) reply.header("connection", "close");
   });
   app.addHook("onResponse", async (request, reply) => {
     request.log.info(

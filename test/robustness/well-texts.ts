@@ -101,14 +101,10 @@ export const csvDataRecords = (text: string): number => {
   let records = 0;
   let fieldStart = true;
   let quoted = false;
-  let recordText = "";
-  let fields = 0;
-  let sawQuote = false;
+  let blank = true;
   const endRecord = () => {
-    if (fields > 0 || sawQuote || recordText.trim() !== "") records++;
-    recordText = "";
-    fields = 0;
-    sawQuote = false;
+    if (!blank) records++;
+    blank = true;
     fieldStart = true;
   };
   for (; i < body.length; i++) {
@@ -118,20 +114,14 @@ export const csvDataRecords = (text: string): number => {
       else if (character === '"') quoted = false;
       continue;
     }
-    if (character === '"' && fieldStart) {
-      quoted = true;
-      sawQuote = true;
-      fieldStart = false;
-    } else if (character === delimiter) {
-      fields++;
-      fieldStart = true;
-    } else if (character === "\r" || character === "\n") {
+    if (character === "\r" || character === "\n") {
       if (character === "\r" && body[i + 1] === "\n") i++;
       endRecord();
-    } else {
-      recordText += character;
-      fieldStart = false;
+      continue;
     }
+    if (character === '"' && fieldStart) quoted = true;
+    fieldStart = character === delimiter;
+    if (character === delimiter || character === '"' || character.trim() !== "") blank = false;
   }
   endRecord();
   return Math.max(records - 1, 0);
