@@ -9,7 +9,7 @@ import type { LogsResult, LogsTask } from "./logs-task.js";
 import type { Outcome } from "./workers/answer-worker.js";
 
 /** Below this many numbers an answer is written on the event loop: a worker round trip would cost more. */
-const PARALLEL_NUMBERS = 200_000;
+const PARALLEL_NUMBERS = 20_000;
 
 // Under tsx or vitest this module is TypeScript, and so is its worker, which a small bootstrap loads through tsx.
 const runningTypeScript = new URL(import.meta.url).pathname.endsWith(".ts");

@@ -25,8 +25,8 @@ export interface ElasticRouteOptions {
   maxSamples: number;
 }
 
-/** Bodies up to this size are parsed and computed on the event loop (about 10,000 samples); larger ones on a worker. */
-const INLINE_BODY_BYTES = 512 * 1024;
+/** Bodies up to this size (about 1,500 samples) are parsed and computed on the event loop; larger ones on a worker. */
+const INLINE_BODY_BYTES = 64 * 1024;
 const JSON_MEDIA_TYPE = "application/json";
 
 const DESCRIPTION = [
