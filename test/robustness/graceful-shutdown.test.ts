@@ -2,7 +2,7 @@ import { Agent, request } from "node:http";
 import { setTimeout as sleep } from "node:timers/promises";
 import { afterEach, describe, expect, it } from "vitest";
 import { withinBound } from "./answer-checks.js";
-import { getFresh, killService, startService, type Reply, type ServiceProcess } from "./service-process.js";
+import { getFresh, killService, startService, waitForOutput, type Reply, type ServiceProcess } from "./service-process.js";
 import { demoLasRepeated } from "./well-texts.js";
 
 const SAMPLES = 20_000;
@@ -48,6 +48,8 @@ const slowUpload = (base: string, file: Buffer, agent: Agent): SlowUpload => {
     });
     outgoing.on("error", reject);
   });
+  // Handled here too, so a test that fails early (and kills the process) leaves no unhandled rejection behind.
+  reply.catch(() => undefined);
   const piece = Math.ceil(file.length / CHUNKS);
   outgoing.on("continue", () => {
     outgoing.write(file.subarray(0, piece));
@@ -79,6 +81,8 @@ describe("graceful shutdown of the real process (issue 5, item 5), with the defa
 
       child.kill("SIGTERM");
       const sending = uploads.map((upload) => upload.finish());
+      // The signal arrives on its own schedule: probe readiness once main.ts has begun its shutdown.
+      await waitForOutput(service, /shutting down/);
 
       const readiness = await getFresh(`${base}/readyz`).then(
         (reply) => reply.status,

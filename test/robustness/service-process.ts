@@ -1,6 +1,7 @@
 import { fork, spawn, type ChildProcess } from "node:child_process";
 import { once } from "node:events";
 import { request, type IncomingMessage } from "node:http";
+import { setTimeout as sleep } from "node:timers/promises";
 import { fileURLToPath } from "node:url";
 import { withinBound } from "./answer-checks.js";
 
@@ -49,6 +50,14 @@ export const startService = (env: Record<string, string> = {}, boundMs = 30_000)
       reject(new Error(`the service exited with ${code} before listening; output:\n${seen}`));
     });
   });
+};
+
+/** Resolves once the process has written a line matching `pattern`; looks every 20 ms, for at most `boundMs`. */
+export const waitForOutput = async (service: ServiceProcess, pattern: RegExp, boundMs = 10_000): Promise<void> => {
+  for (let waited = 0; !pattern.test(service.output()); waited += 20) {
+    if (waited >= boundMs) throw new Error(`no output matching ${pattern} within ${boundMs} ms; output:\n${service.output().slice(-1500)}`);
+    await sleep(20);
+  }
 };
 
 /** Kills the process if it still runs (a test that failed half-way must not leave it behind). */

@@ -79,7 +79,7 @@ describe("a header with very many columns (issue 5, checks: a million columns)",
     it.each([
       {
         what: "a CSV header of 1,000,000 distinct columns over a short row",
-        boundMs: 30_000,
+        boundMs: 60_000,
         file: () => `${["DEPT[m]", "DTC[us/ft]", "DTS[us/ft]", "RHOB[g/cm3]", ...extraNames(999_996)].join(",")}\n1450,95.2,170.4,2.45\n`,
       },
       {
@@ -104,6 +104,6 @@ describe("a header with very many columns (issue 5, checks: a million columns)",
       const answer = await post(service.base, text, boundMs);
       expectSuccessOrProblem(answer, text);
       if (answer.statusCode < 300) expectWellRows(answer, 1, text);
-    }, 60_000);
+    }, 120_000);
   });
 });
