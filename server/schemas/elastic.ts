@@ -1,6 +1,7 @@
 import { z } from "zod";
+import { decimalNumber, queryNumber } from "./query-number.js";
 import { flagSummary, pointFlag, sampleFlag, severity } from "./flags.js";
-import { limitFields, limitsUsed } from "./limits.js";
+import { bodyLimitFields, limitFields, limitsUsed } from "./limits.js";
 import { correlationIds, correlationOptions, derivedColumns, derivedPoint, fillMode } from "./correlations.js";
 import { zoneList, zoneSummarySchema } from "./zones.js";
 import { densityUnit, depthUnit, impedanceUnit, modulusUnit, slownessUnit, unitsUsed, velocityUnit, DEFAULT_UNITS } from "./units.js";
@@ -8,7 +9,8 @@ import { densityUnit, depthUnit, impedanceUnit, modulusUnit, slownessUnit, units
 const DEFAULT_NULL_VALUE = -999.25;
 
 const pointValue = (description: string, example: number) =>
-  z.coerce.number().optional().meta({ description, examples: [example] });
+  // Examples sit on the inner number: the JSON Schema of a preprocessed value is its inner schema's.
+  queryNumber(decimalNumber().meta({ examples: [example] })).optional().meta({ description });
 
 const keepNegativePoisson = z
   .stringbool()
@@ -54,14 +56,16 @@ export const elasticPointQuery = z
     vs: pointValue("Shear velocity, in velocity_unit.", 1800),
     dtc: pointValue("Compressional slowness (DTC), in slowness_unit; replaces vp.", 95.25),
     dts: pointValue("Shear slowness (DTS), in slowness_unit; replaces vs.", 169.33),
-    rho: z.coerce.number().optional().meta({ description: "Bulk density (RHOB), in density_unit.", examples: [2.45] }),
+    rho: queryNumber(decimalNumber().meta({ examples: [2.45] })).optional().meta({ description: "Bulk density (RHOB), in density_unit." }),
     velocity_unit: velocityUnit.default(DEFAULT_UNITS.velocity),
     slowness_unit: slownessUnit.default(DEFAULT_UNITS.slowness),
     density_unit: densityUnit.default(DEFAULT_UNITS.density),
     modulus_unit: modulusUnit.default(DEFAULT_UNITS.modulus),
     impedance_unit: impedanceUnit.default(DEFAULT_UNITS.impedance),
     keep_negative_poisson: keepNegativePoisson,
-    null_value: z.coerce.number().default(DEFAULT_NULL_VALUE).meta({ description: "An input equal to this is absent (flag missing)." }),
+    null_value: queryNumber(decimalNumber().meta({ default: DEFAULT_NULL_VALUE }))
+      .default(DEFAULT_NULL_VALUE)
+      .meta({ description: "An input equal to this is absent (flag missing)." }),
     correlations: z
       .string()
       .max(2000)
@@ -129,7 +133,7 @@ export const elasticColumnsBody = z
       .meta({ description: "Units of the inputs and of the answer; each defaults as shown." }),
     null_value: z.number().default(DEFAULT_NULL_VALUE).meta({ description: "A value equal to this is absent (flag missing). null inside arrays is absent too." }),
     keep_negative_poisson: z.boolean().default(false).meta({ description: keepNegativePoisson.description }),
-    limits: z.strictObject(limitFields).prefault({}).meta({ description: "Overrides of the plausibility ranges (see LimitsUsed)." }),
+    limits: z.strictObject(bodyLimitFields).prefault({}).meta({ description: "Overrides of the plausibility ranges (see LimitsUsed)." }),
     correlations: correlationIds.optional(),
     correlation_options: correlationOptions.optional(),
     ...fillFields,
@@ -213,7 +217,7 @@ export const elasticArrowQuery = z.strictObject({
   modulus_unit: modulusUnit.optional(),
   depth_unit: depthUnit.optional(),
   impedance_unit: impedanceUnit.optional(),
-  null_value: z.coerce.number().optional().meta({ description: "A value equal to this is absent; default -999.25. Arrow nulls are absent too." }),
+  null_value: queryNumber().optional().meta({ description: "A value equal to this is absent; default -999.25. Arrow nulls are absent too." }),
   keep_negative_poisson: z.stringbool().optional(),
   ...fillFields,
   ...limitFields,

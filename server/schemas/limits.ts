@@ -1,24 +1,33 @@
 import { z } from "zod";
+import { decimalNumber, queryNumber } from "./query-number.js";
 import { DEFAULT_PLAUSIBILITY_LIMITS, type PlausibilityLimits } from "../../core/index.js";
-
-const bound = (description: string, fallback: number) =>
-  z.coerce.number().positive().optional().meta({ description: `${description} Default ${fallback}.` });
 
 const d = DEFAULT_PLAUSIBILITY_LIMITS;
 
+const DESCRIPTIONS = {
+  vp_min_m_s: ["Vp below this (m/s) is flagged vp_out_of_range.", d.vpMinMetresPerSecond],
+  vp_max_m_s: ["Vp above this (m/s) is flagged vp_out_of_range.", d.vpMaxMetresPerSecond],
+  vs_min_m_s: ["Vs below this (m/s) is flagged vs_out_of_range.", d.vsMinMetresPerSecond],
+  vs_max_m_s: ["Vs above this (m/s) is flagged vs_out_of_range.", d.vsMaxMetresPerSecond],
+  rho_min_g_cm3: ["Bulk density below this (g/cm3) is flagged density_out_of_range.", d.rhoMinGramsPerCubicCentimetre],
+  rho_max_g_cm3: ["Bulk density above this (g/cm3) is flagged density_out_of_range.", d.rhoMaxGramsPerCubicCentimetre],
+  vp_vs_max: ["Vp/Vs above this is flagged vp_vs_high.", d.vpVsMax],
+} as const satisfies Record<string, readonly [string, number]>;
+
+
 /**
  * Overrides of the plausibility ranges behind the `suspect` range flags. The same names serve as
- * query parameters (GET) and as the `limits` object of a body (POST).
+ * query parameters (GET, and options of file and Arrow bodies) and as the `limits` object of a JSON body.
  */
-export const limitFields = {
-  vp_min_m_s: bound("Vp below this (m/s) is flagged vp_out_of_range.", d.vpMinMetresPerSecond),
-  vp_max_m_s: bound("Vp above this (m/s) is flagged vp_out_of_range.", d.vpMaxMetresPerSecond),
-  vs_min_m_s: bound("Vs below this (m/s) is flagged vs_out_of_range.", d.vsMinMetresPerSecond),
-  vs_max_m_s: bound("Vs above this (m/s) is flagged vs_out_of_range.", d.vsMaxMetresPerSecond),
-  rho_min_g_cm3: bound("Bulk density below this (g/cm3) is flagged density_out_of_range.", d.rhoMinGramsPerCubicCentimetre),
-  rho_max_g_cm3: bound("Bulk density above this (g/cm3) is flagged density_out_of_range.", d.rhoMaxGramsPerCubicCentimetre),
-  vp_vs_max: bound("Vp/Vs above this is flagged vp_vs_high.", d.vpVsMax),
-};
+const limitSchemas = <S extends z.ZodType>(number: () => S) =>
+  Object.fromEntries(
+    Object.entries(DESCRIPTIONS).map(([name, [description, fallback]]) => [name, number().optional().meta({ description: `${description} Default ${fallback}.` })]),
+  ) as Record<keyof typeof DESCRIPTIONS, z.ZodOptional<S>>;
+
+/** As query parameters: decimal text, an empty value is absent. */
+export const limitFields = limitSchemas(() => queryNumber(decimalNumber().positive()));
+/** Inside a JSON body: JSON numbers. */
+export const bodyLimitFields = limitSchemas(() => z.number().positive());
 
 export type LimitFields = { [K in keyof typeof limitFields]?: number };
 

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { queryNumber } from "./query-number.js";
 import { fillMode } from "./correlations.js";
 import { elasticColumnsResponse } from "./elastic.js";
 import { limitFields } from "./limits.js";
@@ -27,7 +28,7 @@ export const logsQuery = z.strictObject({
   velocity_unit: velocityUnit.default(DEFAULT_UNITS.velocity).meta({ description: "Unit of the vp and vs columns of the answer." }),
   impedance_unit: impedanceUnit.default(DEFAULT_UNITS.impedance),
   keep_negative_poisson: z.stringbool().default(false).meta({ description: "Keep the values of samples with sqrt(4/3) < Vp/Vs < sqrt(2), flagged suspect." }),
-  null_value: z.coerce.number().optional().meta({ description: "Value marking an absent sample; default: the file's NULL (LAS ~Well), else -999.25." }),
+  null_value: queryNumber().optional().meta({ description: "Value marking an absent sample; default: the file's NULL (LAS ~Well), else -999.25." }),
   zones: z
     .string()
     .max(20_000)

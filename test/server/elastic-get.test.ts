@@ -80,6 +80,8 @@ describe("GET /v1/elastic", () => {
     ["vp=abc&vs=1500&rho=2.4", "query.vp", "number"],
     ["vp=1e309&vs=1500&rho=2.4", "query.vp", "Infinity"],
     ["vp=3000&vs=1500&rho=2.4&Vp=1", "query.Vp", "unknown field"],
+    ["dtc=&dts=170&rho=2.4", "query.dtc", "is empty"],
+    ["vp=0x10&vs=1500&rho=2.4", "query.vp", "expected a finite decimal number"],
   ])("GET ?%s is a 400 problem naming %s", async (query, field, words) => {
     const { response, body } = await get(query);
     expect(response.statusCode).toBe(400);
