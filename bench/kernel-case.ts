@@ -1,7 +1,7 @@
 /** The core kernel alone beside its memory-bandwidth floor, in the benchmark's own process. */
-import { computeElasticLog, withDefaultLimits, type ElasticLogRequest } from "../core/index.js";
+import { computeElasticLog } from "../core/index.js";
 import { median, perSecond, yesOrNo, type Row } from "./report.js";
-import { NULL_VALUE, type SyntheticWell } from "./synthetic-well.js";
+import { syntheticWellRequest, type SyntheticWell } from "./synthetic-well.js";
 
 /** Columns `computeElasticLog` allocates and fills: Vp, Vs and ρ in SI plus the eleven properties (Float64), and the flags (Uint32). */
 const FLOAT64_COLUMNS = 14;
@@ -31,17 +31,7 @@ export let retained: unknown;
 
 export const kernelCase = (well: SyntheticWell, runs: number): Row[] => {
   const samples = well.depthMetres.length;
-  const request: ElasticLogRequest = {
-    compressional: { measure: "slowness", unit: "us/ft", values: well.dtcMicrosecondsPerFoot },
-    shear: { measure: "slowness", unit: "us/ft", values: well.dtsMicrosecondsPerFoot },
-    density: { unit: "g/cm3", values: well.rhobGramsPerCubicCentimetre },
-    nullValue: NULL_VALUE,
-    keepNegativePoisson: false,
-    limits: withDefaultLimits(),
-    modulusUnit: "GPa",
-    velocityUnit: "m/s",
-    impedanceUnit: "m/s*g/cm3",
-  };
+  const request = syntheticWellRequest(well);
   const inputs = [well.dtcMicrosecondsPerFoot, well.dtsMicrosecondsPerFoot, well.rhobGramsPerCubicCentimetre];
   const kernelMs: number[] = [];
   const copyMs: number[] = [];

@@ -5,7 +5,7 @@
  * curves (DTS below DTC). Deterministic: the same seed gives the same well.
  */
 import { writeSync } from "node:fs";
-import { writeCsv, writeLas } from "../core/index.js";
+import { withDefaultLimits, writeCsv, writeLas, type ElasticLogRequest } from "../core/index.js";
 
 export const NULL_VALUE = -999.25;
 const TOP_METRES = 2150;
@@ -112,3 +112,16 @@ export const syntheticWellLas = (well: SyntheticWell): Iterable<string> => {
 export const writeChunks = (fd: number, chunks: Iterable<string>): void => {
   for (const chunk of chunks) writeSync(fd, chunk);
 };
+
+/** The core request the service makes of this well with its default options (slownesses in µs/ft, moduli in GPa). */
+export const syntheticWellRequest = (well: SyntheticWell): ElasticLogRequest => ({
+  compressional: { measure: "slowness", unit: "us/ft", values: well.dtcMicrosecondsPerFoot },
+  shear: { measure: "slowness", unit: "us/ft", values: well.dtsMicrosecondsPerFoot },
+  density: { unit: "g/cm3", values: well.rhobGramsPerCubicCentimetre },
+  nullValue: NULL_VALUE,
+  keepNegativePoisson: false,
+  limits: withDefaultLimits(),
+  modulusUnit: "GPa",
+  velocityUnit: "m/s",
+  impedanceUnit: "m/s*g/cm3",
+});

@@ -4,7 +4,7 @@ import { deriveProperties } from "./derived-request.js";
 import { optionsFromQuery } from "./elastic-request.js";
 import { splitAtColumns, type AnswerParts } from "./elastic-columns.js";
 import { logsAnswer } from "./logs-answer.js";
-import { ProblemError, unusableData } from "./problems.js";
+import { ProblemError, unreadableFile, unusableData } from "./problems.js";
 import type { LogsQuery } from "./schemas/logs.js";
 import { convertWell } from "./well-conversion.js";
 import { csvChunks, lasChunks, ndjsonChunks } from "./well-output.js";
@@ -74,11 +74,7 @@ export const convertLogs = async (task: LogsTask): Promise<LogsResult> => {
     const writers = { csv: csvChunks, las: lasChunks, ndjson: ndjsonChunks };
     return { kind: "text", pieces: gather(writers[format](conversion, derived)), summary };
   } catch (error) {
-    if (isWellFileError(error)) {
-      throw new ProblemError("unreadable-file", `The well file cannot be read: ${error.message}.`, [
-        { field: "body", ...(error.line === undefined ? {} : { line: error.line }), message: `${error.code}: ${error.message}` },
-      ]);
-    }
+    if (isWellFileError(error)) throw unreadableFile(error);
     if (isInputIssues(error)) throw unusableData(error.message, error.issues, "body");
     throw error;
   }

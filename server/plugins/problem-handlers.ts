@@ -1,6 +1,6 @@
 import type { FastifyError, FastifyInstance, FastifyReply, FastifyRequest } from "fastify";
 import { hasZodFastifySchemaValidationErrors } from "fastify-type-provider-zod";
-import { isInputIssues, isWellFileError } from "../../core/index.js";
+import { isInputIssues } from "../../core/index.js";
 import {
   PROBLEM_MEDIA_TYPE,
   UNKNOWN_FIELD_MESSAGE,
@@ -76,15 +76,8 @@ export const installProblemHandlers = (
       request.log.info({ code: error.code }, "client closed the connection before the answer");
       return reply;
     }
-    // Checked on `unknown`: a FastifyError fits the WellFileError shape, which would defeat the type guard.
-    const failure: unknown = error;
-    if (isWellFileError(failure)) {
-      return send(reply, "unreadable-file", `The well file cannot be read: ${failure.message}.`, [
-        { field: "body", ...(failure.line === undefined ? {} : { line: failure.line }), message: `${failure.code}: ${failure.message}` },
-      ]);
-    }
-    if (isInputIssues(failure)) {
-      const problem = unusableData(failure.message, failure.issues, "body");
+    if (isInputIssues(error)) {
+      const problem = unusableData(error.message, error.issues, "body");
       return send(reply, problem.slug, problem.detail, problem.errors);
     }
     const slug = error.code === undefined ? undefined : FASTIFY_CODES[error.code];

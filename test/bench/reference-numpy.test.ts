@@ -3,9 +3,9 @@ import { mkdtempSync, readFileSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
-import { computeElasticLog, summariseFlags, withDefaultLimits } from "../../core/index.js";
+import { computeElasticLog, summariseFlags } from "../../core/index.js";
 import { REFERENCE_SCRIPT, numpyMissing, writeWellFile } from "../../bench/file-cases.js";
-import { NULL_VALUE, syntheticWell, syntheticWellCsv } from "../../bench/synthetic-well.js";
+import { syntheticWell, syntheticWellCsv, syntheticWellRequest } from "../../bench/synthetic-well.js";
 import { relativeError } from "../helpers/elastic.js";
 
 const missing = numpyMissing();
@@ -42,17 +42,7 @@ describe("bench/reference_numpy.py, the script the benchmark compares the servic
         rmSync(folder, { recursive: true, force: true });
       }
 
-      const log = computeElasticLog({
-        compressional: { measure: "slowness", unit: "us/ft", values: well.dtcMicrosecondsPerFoot },
-        shear: { measure: "slowness", unit: "us/ft", values: well.dtsMicrosecondsPerFoot },
-        density: { unit: "g/cm3", values: well.rhobGramsPerCubicCentimetre },
-        nullValue: NULL_VALUE,
-        keepNegativePoisson: false,
-        limits: withDefaultLimits(),
-        modulusUnit: "GPa",
-        velocityUnit: "m/s",
-        impedanceUnit: "m/s*g/cm3",
-      });
+      const log = computeElasticLog(syntheticWellRequest(well));
       // The file must exercise every rule the script reimplements, or agreeing would prove little.
       expect(Object.keys(summariseFlags(log.flags, log.invalidMask).flags)).toEqual(
         expect.arrayContaining(["missing", "vs_not_below_vp", "vp_vs_below_sqrt2"]),
