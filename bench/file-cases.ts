@@ -45,9 +45,12 @@ export const numpyMissing = (): string | undefined => {
   return probe.status === 0 ? undefined : `python3 cannot import numpy (${probe.stderr.trim().split("\n").at(-1)})`;
 };
 
+/** Significant digits of computed values on both sides: the service's default, and the same asked of the script. */
+const DIGITS = 8;
+
 const runScript = (source: string, target: string): number => {
   const t0 = performance.now();
-  const run = spawnSync("python3", [REFERENCE_SCRIPT, source, target], { encoding: "utf8", timeout: SCRIPT_LIMIT_MS });
+  const run = spawnSync("python3", [REFERENCE_SCRIPT, source, target, String(DIGITS)], { encoding: "utf8", timeout: SCRIPT_LIMIT_MS });
   if (run.error || run.status !== 0) throw new Error(`reference_numpy.py failed: ${run.error?.message ?? run.stderr.slice(-300)}`);
   return performance.now() - t0;
 };
@@ -69,9 +72,9 @@ export const fileCases = async (base: string, well: SyntheticWell, folder: strin
   return (["csv", "las"] as const).map((format) => {
     const service = median(times[format]);
     return {
-      case: `${format.toUpperCase()} in and out, POST /v1/logs?format=${format}, ${samples} samples (${(sizes[format] / 1e6).toFixed(0)} MB file, median of ${runs})`,
+      case: `${format.toUpperCase()} in and out, POST /v1/logs?format=${format}, ${samples} samples (${(sizes[format] / 1e6).toFixed(0)} MB file; input curves, 13 properties and QC out, computed values to ${DIGITS} significant digits; median of ${runs})`,
       measured: milliseconds(service),
-      floor: numpy === undefined ? `numpy script not run: ${missing}` : `${milliseconds(numpy)} (python3 bench/reference_numpy.py on the CSV, wall time)`,
+      floor: numpy === undefined ? `numpy script not run: ${missing}` : `${milliseconds(numpy)} (python3 bench/reference_numpy.py on the CSV: depth and 7 moduli out, to ${DIGITS} significant digits; wall time)`,
       ratio: numpy === undefined ? "—" : `${(service / numpy).toFixed(2)}×`,
       target: "≤ 1.00× the numpy script",
       met: numpy === undefined ? "not measured" : yesOrNo(service <= numpy),

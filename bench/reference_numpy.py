@@ -1,11 +1,12 @@
 #!/usr/bin/env python3
 """Dynamic elastic moduli of a well from a CSV log, written the way a log analyst scripts it with numpy.
 
-Usage: python3 bench/reference_numpy.py in.csv out.csv
+Usage: python3 bench/reference_numpy.py in.csv out.csv [significant_digits]
 
 The input has a header row of NAME[unit] cells, the depth first, e.g.
 DEPT[m],DTC[us/ft],DTS[us/ft],RHOB[g/cm3]; an empty cell or -999.25 is a sample not logged.
-The output has the depth and E, nu, G, K, lambda, M (GPa) and Vp/Vs, at full precision,
+The output has the depth and E, nu, G, K, lambda, M (GPa) and Vp/Vs, to 17 significant digits
+(every double exactly) unless fewer are asked for (the benchmark asks for 8, as elastilog writes by default),
 nan where a sample is missing or impossible (Vs >= Vp, or Vp/Vs < sqrt(2), a negative Poisson's ratio).
 
 elastilog's benchmark (bench/run.ts) times this script beside the service on the same file.
@@ -71,16 +72,16 @@ def elastic_moduli(dtc, dts, rhob):
 UNITS = {"E": "GPa", "NU": "", "G": "GPa", "K": "GPa", "LAMBDA": "GPa", "M": "GPa", "VPVS": ""}
 
 
-def main(source, target):
+def main(source, target, digits=17):
     header, log = read_log(source)
     depth = next(iter(log.values()))
     moduli = elastic_moduli(log["DTC"], log["DTS"], log["RHOB"])
     names = [header[0]] + [f"{name}[{unit}]" if unit else name for name, unit in UNITS.items()]
     table = np.column_stack([depth] + [moduli[name] for name in UNITS])
-    np.savetxt(target, table, delimiter=",", fmt="%.17g", header=",".join(names), comments="")
+    np.savetxt(target, table, delimiter=",", fmt=f"%.{digits}g", header=",".join(names), comments="")
 
 
 if __name__ == "__main__":
-    if len(sys.argv) != 3:
-        sys.exit("usage: python3 bench/reference_numpy.py in.csv out.csv")
-    main(sys.argv[1], sys.argv[2])
+    if len(sys.argv) not in (3, 4):
+        sys.exit("usage: python3 bench/reference_numpy.py in.csv out.csv [significant_digits]")
+    main(sys.argv[1], sys.argv[2], int(sys.argv[3]) if len(sys.argv) == 4 else 17)

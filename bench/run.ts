@@ -85,6 +85,10 @@ const singlePointCase = async (base: string, bareBase: string): Promise<Row[]> =
   ];
 };
 
+/** `npm run bench -- --only=json,arrow,files,get,kernel,memory`: the chosen cases only, printed and not written to BENCHMARKS.md. */
+const ONLY = process.argv.find((argument) => argument.startsWith("--only="))?.slice("--only=".length).split(",");
+const chosen = (name: string): boolean => ONLY === undefined || ONLY.includes(name);
+
 /** Every case against one service process and a bare Fastify process, then the memory case against a fresh service. */
 const measureAll = async (folder: string): Promise<Row[]> => {
   const rows: Row[] = [];
@@ -98,23 +102,23 @@ const measureAll = async (folder: string): Promise<Row[]> => {
   let jsonMillion: number | undefined;
   try {
     bare = await start("bare", ["bench/bare-fastify.mjs"], { PORT: String(barePort) }, /ready/);
-    for (const [samples, runs] of [[10_000, 7], [100_000, 5], [1_000_000, 3]] as const) {
+    for (const [samples, runs] of chosen("json") || chosen("arrow") ? ([[10_000, 7], [100_000, 5], [1_000_000, 3]] as const) : []) {
       await attempt(rows, `JSON POST /v1/elastic, ${samples.toLocaleString("en")} samples`, "—", async () => {
         const { row, endToEndMs } = await jsonCase(base, wells.get(samples) as SyntheticWell, runs);
         if (samples === 1_000_000) jsonMillion = endToEndMs;
         return [row];
       });
     }
-    await attempt(rows, "Arrow IPC in and out, 1,000,000 samples", "≥ 10× faster than JSON", () => arrowCase(base, million, jsonMillion, 3));
-    await attempt(rows, "CSV and LAS in and out, 1,000,000 samples", "≤ 1.00× the numpy script", () => fileCases(base, million, folder, 3));
-    await attempt(rows, "Single-point GET /v1/elastic", `≥ ${SINGLE_POINT_TARGET} of the bare route`, () =>
+    if (chosen("arrow")) await attempt(rows, "Arrow IPC in and out, 1,000,000 samples", "≥ 10× faster than JSON", () => arrowCase(base, million, jsonMillion, 3));
+    if (chosen("files")) await attempt(rows, "CSV and LAS in and out, 1,000,000 samples", "≤ 1.00× the numpy script", () => fileCases(base, million, folder, 3));
+    if (chosen("get")) await attempt(rows, "Single-point GET /v1/elastic", `≥ ${SINGLE_POINT_TARGET} of the bare route`, () =>
       singlePointCase(base, `http://127.0.0.1:${barePort}`),
     );
-    await attempt(rows, "Core kernel alone, 1,000,000 samples", "≥ 0.5 of the copy rate", async () => kernelCase(million, 7));
+    if (chosen("kernel")) await attempt(rows, "Core kernel alone, 1,000,000 samples", "≥ 0.5 of the copy rate", async () => kernelCase(million, 7));
   } finally {
     await Promise.all([stop(service), bare && stop(bare)]);
   }
-  await attempt(rows, `Memory: LAS in and out, ${MEMORY_SAMPLES.toLocaleString("en")} samples`, "peak < 400 MB", () => memoryCase(MEMORY_SAMPLES, folder));
+  if (chosen("memory")) await attempt(rows, `Memory: LAS in and out, ${MEMORY_SAMPLES.toLocaleString("en")} samples`, "peak < 400 MB", () => memoryCase(MEMORY_SAMPLES, folder));
   return rows;
 };
 
@@ -144,7 +148,7 @@ const main = async () => {
     ...markdownTable(rows),
     "",
   ].join("\n");
-  writeFileSync(join(root, "BENCHMARKS.md"), text);
+  if (ONLY === undefined) writeFileSync(join(root, "BENCHMARKS.md"), text);
   console.log(text);
 };
 

@@ -19,3 +19,4 @@ export * from "./percentile.js";
 export * from "./correlations/index.js";
 export * from "./derived-properties.js";
 export * from "./unique-mnemonics.js";
+export * from "./ascii-numbers.js";

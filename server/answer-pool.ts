@@ -62,10 +62,27 @@ export class AnswerPool {
     return outcome.ok;
   }
 
-  /** Columns as JSON text, written in parallel by up to `threads` workers (copies of the columns are sent). */
+  /**
+   * Columns as JSON text, written in parallel by up to `threads` workers. The columns' memory is handed over, not
+   * copied (a copy of a whole well's columns would hold the event loop for tens of milliseconds): they are unusable
+   * here afterwards.
+   */
   async serialize(columns: Float64Array[]): Promise<Buffer[]> {
-    const groups = Array.from({ length: Math.min(this.threads, columns.length) }, (_, g) => columns.filter((_, c) => c % this.threads === g));
-    const results = await Promise.all(groups.map((group) => this.workers().run({ columns: group }, { name: "serialize" }) as Promise<{ texts: Uint8Array[] }>));
+    // A buffer can be handed over once: a column that shares one (a view, or the same column twice) goes as a copy.
+    const handed = new Set<ArrayBufferLike>();
+    const owned = columns.map((column) => {
+      const whole = column.byteOffset === 0 && column.byteLength === column.buffer.byteLength;
+      if (!whole || handed.has(column.buffer)) return column.slice();
+      handed.add(column.buffer);
+      return column;
+    });
+    const groups = Array.from({ length: Math.min(this.threads, owned.length) }, (_, g) => owned.filter((_, c) => c % this.threads === g));
+    const results = await Promise.all(
+      groups.map(
+        (group) =>
+          this.workers().run({ columns: group }, { name: "serialize", transferList: group.map((column) => column.buffer as ArrayBuffer) }) as Promise<{ texts: Uint8Array[] }>,
+      ),
+    );
     const texts: Buffer[] = new Array(columns.length);
     results.forEach(({ texts: groupTexts }, g) => groupTexts.forEach((text, k) => (texts[g + k * this.threads] = Buffer.from(text.buffer, text.byteOffset, text.byteLength))));
     return texts;

@@ -16,6 +16,7 @@ import { crossOrigin } from "./plugins/cross-origin.js";
 import { loadShedding } from "./plugins/load-shedding.js";
 import { metrics } from "./plugins/metrics.js";
 import { installProblemHandlers } from "./plugins/problem-handlers.js";
+import { rateLimiting } from "./plugins/rate-limiting.js";
 import { trackRouteMethods } from "./plugins/route-methods.js";
 import { securityHeaders } from "./plugins/security-headers.js";
 import correlationRoutes from "./routes/correlations.js";
@@ -77,7 +78,7 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
   app.decorate("shuttingDown", false);
   app.decorate("answerPool", new AnswerPool(config.workerThreads));
   app.addHook("onClose", async () => app.answerPool.close());
-  // Order matters: CORS headers must reach the 503 and 401 answers of load shedding and authentication.
+  // Order matters: CORS headers must reach the 503, 401 and 429 answers of load shedding, authentication and rate limiting.
   await app.register(securityHeaders);
   await app.register(crossOrigin, { allowedOrigins: config.corsOrigins });
   await app.register(loadShedding, {
@@ -88,6 +89,8 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
     retryAfterSeconds: config.retryAfterSeconds,
   });
   await app.register(authentication, { apiKeys: config.apiKeys, metricsRequireAuth: config.metricsRequireAuth });
+  // After authentication, whose hook then has named the request's API key; before the routes, to which it adds its hook.
+  await app.register(rateLimiting, { maxRequests: config.rateLimitMax, windowMs: config.rateLimitWindowMs });
   const methodsOf = trackRouteMethods(app);
   app.setValidatorCompiler(validatorCompiler);
   app.setSerializerCompiler(() => (data) => JSON.stringify(data));

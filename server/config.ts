@@ -35,6 +35,10 @@ export interface ServiceConfig {
   maxEventLoopUtilization: number;
   /** Seconds a refused client is asked to wait. */
   retryAfterSeconds: number;
+  /** Requests one client (API key, else address) may send to /v1/* per window; 0: no rate limiting. */
+  rateLimitMax: number;
+  /** Length of the rate-limit window, ms. */
+  rateLimitWindowMs: number;
   /** Worker threads for large answers (parsing, computing and writing); default: one per CPU. */
   workerThreads: number;
 }
@@ -59,6 +63,8 @@ export const DEFAULT_CONFIG: Readonly<ServiceConfig> = Object.freeze({
   maxRssBytes: 0,
   maxEventLoopUtilization: 0,
   retryAfterSeconds: 5,
+  rateLimitMax: 0,
+  rateLimitWindowMs: 60_000,
   workerThreads: Math.max(1, availableParallelism()),
 });
 
@@ -78,6 +84,8 @@ const ENV_NAMES: Record<WholeNumberSetting, string> = {
   maxHeapUsedBytes: "MAX_HEAP_USED_BYTES",
   maxRssBytes: "MAX_RSS_BYTES",
   retryAfterSeconds: "RETRY_AFTER_SECONDS",
+  rateLimitMax: "RATE_LIMIT_MAX",
+  rateLimitWindowMs: "RATE_LIMIT_WINDOW_MS",
   workerThreads: "WORKER_THREADS",
 };
 
@@ -90,6 +98,7 @@ const UNIT_WORDS: [RegExp, string][] = [
   [/Seconds$/, "seconds"],
   [/^port$/, "port"],
   [/Threads$/, "threads"],
+  [/^rateLimitMax$/, "requests"],
 ];
 
 /** Reads the configuration from environment variables, refusing values that are not whole non-negative numbers. */

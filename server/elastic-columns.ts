@@ -111,7 +111,11 @@ export const prepareColumnsAnswer = (input: ColumnsBody, maxSamples: number, for
     const request = columnsRequest(body);
     const log = computeElasticLog(request.core);
     const depth = request.depth ?? (request.top && intervalMidpoints(request.top, request.base as Float64Array));
-    const derived = deriveProperties(log, { correlations: body.correlations, options: body.correlation_options, zones: body.zones, depth }, "body");
+    const derived = deriveProperties(
+      log,
+      { correlations: body.correlations, options: body.correlation_options, zones: body.zones, depth, gapFillIds: [body.vs_from, body.rho_from] },
+      "body",
+    );
     const answer = columnsAnswer(log, request.core, body.units, request);
     if (format === "arrow") {
       if (derived || body.zones) {

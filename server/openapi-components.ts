@@ -1,4 +1,5 @@
 import { jsonSchemaTransformObject } from "fastify-type-provider-zod";
+import { problemResponseComponents } from "./schemas/problem.js";
 
 type TransformObject = typeof jsonSchemaTransformObject;
 type Document = ReturnType<TransformObject>;
@@ -17,15 +18,17 @@ const collectRefs = (value: unknown, found: Set<string>): void => {
 
 /**
  * The zod type provider writes every registered schema twice (an input and an output variant).
- * Keep only the component schemas the paths actually reference, directly or through other components,
- * so the published document lists each schema once.
+ * Keep only the component schemas the paths and responses actually reference, directly or through other
+ * components, so the published document lists each schema once. Adds one problem response per status
+ * (`components.responses`), so the document lists every problem type, even those no operation declares.
  */
 export const transformObject: TransformObject = (input) => {
   const document = jsonSchemaTransformObject(input) as Document & { components?: { schemas?: Record<string, unknown> } };
   const schemas = document.components?.schemas;
   if (schemas === undefined) return document;
+  const responses = { ...problemResponseComponents(`${REF_PREFIX}Problem`), ...(document.components as { responses?: object }).responses };
   const used = new Set<string>();
-  collectRefs((document as { paths?: unknown }).paths, used);
+  collectRefs([(document as { paths?: unknown }).paths, responses], used);
   for (let size = -1; size !== used.size; ) {
     size = used.size;
     for (const name of [...used]) collectRefs(schemas[name], used);
@@ -33,6 +36,7 @@ export const transformObject: TransformObject = (input) => {
   document.components = {
     ...document.components,
     schemas: Object.fromEntries(Object.entries(schemas).filter(([name]) => used.has(name))),
+    responses,
   };
   return document;
 };

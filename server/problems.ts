@@ -48,6 +48,11 @@ export const PROBLEM_KINDS = {
     title: "The well file cannot be used as asked",
     fix: "Name the curves with vp_curve, vs_curve, rho_curve, depth_curve, or their units with vp_unit, vs_unit, rho_unit, depth_unit.",
   },
+  "rate-limited": {
+    status: 429,
+    title: "Too many requests from this client",
+    fix: "Wait the number of seconds in the Retry-After header before sending the next request; x-ratelimit-limit and x-ratelimit-reset tell the allowance per window.",
+  },
   overloaded: {
     status: 503,
     title: "The service is overloaded",

@@ -5,6 +5,7 @@ import {
   InputIssues,
   normaliseUnit,
   type CurveMapping,
+  type CurveInfo,
   type CurveOverrides,
   type DensityUnit,
   type DepthUnit,
@@ -94,12 +95,25 @@ const sonic = (choice: RoleChoice, values: Float64Array): SonicCurve =>
     ? { measure: "velocity", unit: choice.unit as VelocityUnit, values }
     : { measure: "slowness", unit: choice.unit as "us/ft", values };
 
-/** Finds the curves, settles their units, and computes the elastic log of a whole well. */
-export const convertWell = (file: WellFile, options: ConversionOptions): WellConversion => {
+/** What converting a file's rows needs, settled from its header alone: the curves, their units, the options. */
+export interface ConversionPlan {
+  curves: Partial<Record<Role, RoleChoice>>;
+  /** The options of every core request for this file, without the columns. */
+  computation: Omit<ElasticLogRequest, "compressional" | "shear" | "density">;
+  depthUnit: DepthUnit;
+  nullValue: number;
+  warnings: { line?: number; message: string }[];
+}
+
+/** Finds the curves and settles their units from the header (curves and null value) of a file; throws ProblemError when they cannot be. */
+export const planConversion = (
+  header: { curves: CurveInfo[]; nullValue: number | undefined; warnings?: readonly { line?: number; message: string }[] },
+  options: ConversionOptions,
+): ConversionPlan => {
   let mapping: CurveMapping;
   try {
     const optional = [...(options.fillShear ? ["vs" as const] : []), ...(options.fillDensity ? ["rho" as const] : [])];
-    mapping = detectCurves(file.table.curves, options.curves, optional);
+    mapping = detectCurves(header.curves, options.curves, optional);
   } catch (error) {
     if (!(error instanceof InputIssues)) throw error;
     throw new ProblemError(
@@ -108,33 +122,50 @@ export const convertWell = (file: WellFile, options: ConversionOptions): WellCon
       error.issues.map((issue) => ({ field: `query.${issue.field}`, message: issue.message })),
     );
   }
-  const warnings: WellConversion["warnings"] = file.format === "las" ? [...file.las.warnings] : [];
+  const warnings: ConversionPlan["warnings"] = [...(header.warnings ?? [])];
   const vp = resolveRole("vp", mapping.vp, options.units.vp, warnings);
   const vs = mapping.vs && resolveRole("vs", mapping.vs, options.units.vs, warnings);
   const rho = mapping.rho && resolveRole("rho", mapping.rho, options.units.rho, warnings);
   const depth = mapping.depth && resolveRole("depth", mapping.depth, options.units.depth, warnings);
-  const nullValue = options.nullValue ?? file.table.nullValue ?? DEFAULT_NULL_VALUE;
-  const columns = file.table.columns;
+  const nullValue = options.nullValue ?? header.nullValue ?? DEFAULT_NULL_VALUE;
+  if (!vs) warnings.push({ message: `no shear curve: Vs of every sample is predicted by ${options.fillShear?.correlation.id}` });
+  if (!rho) warnings.push({ message: `no density curve: bulk density of every sample is predicted by ${options.fillDensity?.correlation.id}` });
+  const { curves: _curves, units: _units, nullValue: _nullValue, ...computation } = options;
+  return {
+    curves: { vp, ...(vs && { vs }), ...(rho && { rho }), ...(depth && { depth }) },
+    computation: { ...computation, nullValue },
+    depthUnit: (depth?.unit as DepthUnit | undefined) ?? "m",
+    nullValue,
+    warnings,
+  };
+};
+
+/** The core request for some rows of a file (all of them, or a batch), one array per curve of the file. */
+export const requestForRows = (plan: ConversionPlan, columns: readonly Float64Array[]): ElasticLogRequest => {
+  const { vp, vs, rho } = plan.curves as Required<ConversionPlan["curves"]>;
   const rows = columns[vp.index].length;
   const absent = () => new Float64Array(rows).fill(NaN);
-  const { curves: _curves, units: _units, ...computation } = options;
-  const request: ElasticLogRequest = {
-    ...computation,
+  return {
+    ...plan.computation,
     compressional: sonic(vp, columns[vp.index]),
     shear: vs ? sonic(vs, columns[vs.index]) : { measure: "velocity", unit: "m/s", values: absent() },
     density: rho ? { unit: rho.unit as DensityUnit, values: columns[rho.index] } : { unit: "g/cm3", values: absent() },
-    nullValue,
   };
-  if (!vs) warnings.push({ message: `no shear curve: Vs of every sample is predicted by ${options.fillShear?.correlation.id}` });
-  if (!rho) warnings.push({ message: `no density curve: bulk density of every sample is predicted by ${options.fillDensity?.correlation.id}` });
+};
+
+/** Finds the curves, settles their units, and computes the elastic log of a whole well. */
+export const convertWell = (file: WellFile, options: ConversionOptions): WellConversion => {
+  const plan = planConversion({ ...file.table, warnings: file.format === "las" ? file.las.warnings : [] }, options);
+  const request = requestForRows(plan, file.table.columns);
+  const depth = plan.curves.depth;
   return {
     file,
     request,
     log: computeElasticLog(request),
-    curves: { vp, ...(vs && { vs }), ...(rho && { rho }), ...(depth && { depth }) },
-    depth: depth && columns[depth.index],
-    depthUnit: (depth?.unit as DepthUnit | undefined) ?? "m",
-    nullValue,
-    warnings,
+    curves: plan.curves,
+    depth: depth && file.table.columns[depth.index],
+    depthUnit: plan.depthUnit,
+    nullValue: plan.nullValue,
+    warnings: plan.warnings,
   };
 };

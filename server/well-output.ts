@@ -1,67 +1,114 @@
 import {
+  AsciiText,
+  createLasTextWriter,
+  csvHeaderRecord,
+  writeCsvRecords,
+  writeShortest,
+  SHORTEST,
+  type NumberFormat,
   FLAGS,
   flagCodesOf,
+  invalidatingMask,
+  isItemSection,
+  lasIndexItems,
   type DerivedColumn,
-  lasCurvesOf,
-  writeCsv,
-  writeLas,
+  type ElasticLog,
   type LasCurveToWrite,
   type LasItemToWrite,
+  type LasTextWriter,
 } from "../core/index.js";
 import { CAUTION, citationText } from "./derived-answer.js";
 import { OUTPUT_PROPERTIES, QC_CURVE, type OutputUnits } from "./output-properties.js";
 import { SERVICE_VERSION } from "./version.js";
-import type { WellConversion } from "./well-conversion.js";
+import type { ConversionPlan } from "./well-conversion.js";
+import type { WellHeader } from "./well-upload.js";
 
-const outputUnits = (conversion: WellConversion): OutputUnits => ({
-  velocity: conversion.request.velocityUnit,
-  modulus: conversion.request.modulusUnit,
-  impedance: conversion.request.impedanceUnit,
+/** Consecutive rows of a file and what was computed for them: the unit a streaming conversion writes at a time. */
+export interface RowBatch {
+  /** Row number (from 0) of the batch's first row in the file. */
+  first: number;
+  /** The file's columns for these rows, one per curve, as read. */
+  input: readonly Float64Array[];
+  log: ElasticLog;
+  derived: Map<string, DerivedColumn> | undefined;
+  /** The depth curve's values for these rows, when the file has one. */
+  depth: Float64Array | undefined;
+}
+
+/** Writes a converted well batch by batch into `text`; the first batch's text begins with the header. */
+export interface WellOutput {
+  batch(rows: RowBatch, text: AsciiText): void;
+}
+
+/** Significant digits of computed values in CSV and LAS answers unless `digits=` says otherwise. */
+export const DEFAULT_DIGITS = 8;
+
+/** The number format of computed values for `digits=` (1–15, or exact). */
+export const computedFormat = (digits: string | undefined): NumberFormat =>
+  digits === "exact" ? SHORTEST : { kind: "significant", digits: digits === undefined ? DEFAULT_DIGITS : Number(digits) };
+
+const QC_FORMAT: NumberFormat = { kind: "decimals", decimals: 0 };
+
+export type TextFormat = "csv" | "las" | "ndjson";
+
+const outputUnits = (plan: ConversionPlan): OutputUnits => ({
+  velocity: plan.computation.velocityUnit,
+  modulus: plan.computation.modulusUnit,
+  impedance: plan.computation.impedanceUnit,
 });
 
-const qcColumn = (conversion: WellConversion): Float64Array => Float64Array.from(conversion.log.flags);
+const qcColumn = (log: ElasticLog): Float64Array => Float64Array.from(log.flags);
 
 /** Column name of a derived curve: EL_ and the correlation id in capitals, its dot an underscore (EL_UCS_MCNALLY1987). */
 export const derivedCurveName = (id: string): string => `EL_${id.replace(".", "_").toUpperCase()}`;
 
 const derivedList = (derived: Map<string, DerivedColumn> | undefined): DerivedColumn[] => [...(derived?.values() ?? [])];
 
+/** The computed columns of a batch in output order: every property, each derived estimate, the QC bit mask. */
+const computedColumns = (rows: RowBatch): Float64Array[] => [
+  ...OUTPUT_PROPERTIES.map((property) => property.column(rows.log)),
+  ...derivedList(rows.derived).map((column) => column.values),
+  qcColumn(rows.log),
+];
+
 /** The input's columns, then every computed property, each derived estimate and the QC bit mask, one row per input row (RFC 4180). */
-export const csvChunks = (conversion: WellConversion, derived: Map<string, DerivedColumn> | undefined): Generator<string> => {
-  const { table } = conversion.file;
-  const units = outputUnits(conversion);
-  const estimates = derivedList(derived);
-  return writeCsv({
-    curves: [
-      ...table.curves.map((curve) => ({ name: curve.mnemonic, unit: curve.unit })),
-      ...OUTPUT_PROPERTIES.map((property) => ({ name: property.curve, unit: property.unit(units) })),
-      ...estimates.map((column) => ({ name: derivedCurveName(column.correlation.id), unit: column.correlation.outputUnit })),
-      { name: QC_CURVE, unit: "" },
-    ],
-    columns: [
-      ...table.columns,
-      ...OUTPUT_PROPERTIES.map((property) => property.column(conversion.log)),
-      ...estimates.map((column) => column.values),
-      qcColumn(conversion),
-    ],
-  });
+const csvOutput = (header: WellHeader, plan: ConversionPlan, computed: NumberFormat): WellOutput => {
+  const units = outputUnits(plan);
+  let formats: NumberFormat[] | undefined;
+  return {
+    batch(rows, text) {
+      const columns = [...rows.input, ...computedColumns(rows)];
+      if (formats === undefined) {
+        formats = columns.map((_, c) => (c < rows.input.length ? SHORTEST : c === columns.length - 1 ? QC_FORMAT : computed));
+        text.utf8(
+          csvHeaderRecord([
+            ...header.curves.map((curve) => ({ name: curve.mnemonic, unit: curve.unit })),
+            ...OUTPUT_PROPERTIES.map((property) => ({ name: property.curve, unit: property.unit(units) })),
+            ...derivedList(rows.derived).map((column) => ({ name: derivedCurveName(column.correlation.id), unit: column.correlation.outputUnit })),
+            { name: QC_CURVE, unit: "" },
+          ]),
+        );
+      }
+      writeCsvRecords(text, columns, formats);
+    },
+  };
 };
 
 /** `~Other` lines documenting the QC curve's bits, so the file explains itself once loaded elsewhere. */
-const qcLegend = (conversion: WellConversion): string[] => [
+const qcLegend = (invalidMask: number): string[] => [
   `${QC_CURVE} is a bit mask of QC flags raised by elastilog ${SERVICE_VERSION}; 0 means no flag. Bits (value = 2^bit):`,
   ...FLAGS.map(
     (flag) =>
       `  bit ${flag.bit} (value ${2 ** flag.bit}) ${flag.code}, ${
-        (conversion.log.invalidMask & (1 << flag.bit)) !== 0 ? "invalid: moduli written as NULL" : "suspect: values kept"
+        (invalidMask & (1 << flag.bit)) !== 0 ? "invalid: moduli written as NULL" : "suspect: values kept"
       }. ${flag.meaning}`,
   ),
   "Dynamic (log-derived) moduli are estimates: calibrate against core tests before engineering use;",
   "engineering decisions rest with licensed professionals under local regulations.",
 ];
 
-const optionItems = (conversion: WellConversion): LasItemToWrite[] => {
-  const { request, curves } = conversion;
+const optionItems = (plan: ConversionPlan): LasItemToWrite[] => {
+  const { computation: request, curves } = plan;
   const limits = request.limits;
   const source = (role: "vp" | "vs" | "rho") => {
     const choice = curves[role];
@@ -84,82 +131,104 @@ const optionItems = (conversion: WellConversion): LasItemToWrite[] => {
   ];
 };
 
-const COMPUTED_FORMAT = { kind: "significant", digits: 8 } as const;
+type CurveMeta = Omit<LasCurveToWrite, "values">;
 
-/** The input curves as read (for a CSV input: depth first, as LAS needs its index first). */
-const inputCurves = (conversion: WellConversion): LasCurveToWrite[] => {
-  const { file } = conversion;
-  if (file.format === "las") return lasCurvesOf(file.las);
-  const curves = file.table.curves.map((curve, c) => ({
-    mnemonic: curve.mnemonic,
-    unit: curve.unit,
-    description: curve.description,
-    values: file.table.columns[c],
-  }));
-  const depthIndex = conversion.curves.depth?.index;
-  if (depthIndex !== undefined) return [curves[depthIndex], ...curves.filter((_, c) => c !== depthIndex)];
-  const rows = conversion.log.length;
-  return [{ mnemonic: "INDEX", unit: "", description: "SAMPLE NUMBER", values: Float64Array.from({ length: rows }, (_, i) => i) }, ...curves];
+/**
+ * The input curves as read, and how to pick their columns from a batch: a LAS file's own curves in its order; for a
+ * CSV input, depth first (LAS needs its index first) or, without depth, a sample number.
+ */
+const inputCurves = (header: WellHeader, plan: ConversionPlan): { curves: CurveMeta[]; columns: (rows: RowBatch) => Float64Array[] } => {
+  if (header.format === "las") {
+    const items = header.header.sections.flatMap((section) => (isItemSection(section) && section.kind === "curve" ? section.items : []));
+    const curves = header.curves.map((curve, c) => ({ mnemonic: items[c].mnemonic, unit: curve.unit, description: curve.description, value: items[c].value }));
+    return { curves, columns: (rows) => [...rows.input] };
+  }
+  const curves = header.curves.map((curve) => ({ mnemonic: curve.mnemonic, unit: curve.unit, description: curve.description }));
+  const depthIndex = plan.curves.depth?.index;
+  if (depthIndex !== undefined) {
+    const order = [depthIndex, ...curves.map((_, c) => c).filter((c) => c !== depthIndex)];
+    return { curves: order.map((c) => curves[c]), columns: (rows) => order.map((c) => rows.input[c]) };
+  }
+  return {
+    curves: [{ mnemonic: "INDEX", unit: "", description: "SAMPLE NUMBER" }, ...curves],
+    columns: (rows) => [Float64Array.from({ length: rows.log.length }, (_, i) => rows.first + i), ...rows.input],
+  };
 };
 
 /**
  * LAS 2.0: the input's header sections and curves kept, the computed curves appended with units and
  * descriptions, the QC bit mask curve documented in ~Other, the options used in ~Parameter, the same NULL.
+ * A CSV input has no ~Well to keep: its STRT, STOP and STEP come from the first batch, which must then hold every row.
  */
-export const lasChunks = (conversion: WellConversion, derived: Map<string, DerivedColumn> | undefined): Generator<string> => {
-  const units = outputUnits(conversion);
-  const computed: LasCurveToWrite[] = OUTPUT_PROPERTIES.map((property) => ({
-    mnemonic: property.curve,
-    unit: property.unit(units),
-    description: property.description,
-    values: property.column(conversion.log),
-    format: COMPUTED_FORMAT,
-  }));
-  const estimates: LasCurveToWrite[] = derivedList(derived).map(({ correlation, values }) => ({
-    mnemonic: derivedCurveName(correlation.id),
-    unit: correlation.outputUnit,
-    // LAS descriptions end the line and may not hold a colon (CWLS LAS 2.0, the colon delimits them).
-    description: `EMPIRICAL ${correlation.kind.toUpperCase()} ${citationText(correlation.citation).replaceAll("doi:", "doi ").replaceAll(":", " -")}`,
-    values,
-    format: COMPUTED_FORMAT,
-  }));
-  const caution = estimates.length === 0 ? [] : ["EL_ curves named after a correlation are empirical estimates. " + CAUTION];
-  return writeLas({
-    header: conversion.file.format === "las" ? conversion.file.las.sections : undefined,
-    curves: [
-      ...inputCurves(conversion),
-      ...computed,
-      ...estimates,
-      { mnemonic: QC_CURVE, unit: "", description: "QC FLAG BIT MASK (SEE ~OTHER)", values: qcColumn(conversion), format: { kind: "decimals", decimals: 0 } },
-    ],
-    nullValue: conversion.nullValue,
-    parameters: optionItems(conversion),
-    otherLines: [...qcLegend(conversion), ...caution],
-  });
+const lasOutput = (header: WellHeader, plan: ConversionPlan, computed: NumberFormat): WellOutput => {
+  const units = outputUnits(plan);
+  const input = inputCurves(header, plan);
+  let writer: LasTextWriter | undefined;
+  return {
+    batch(rows, text) {
+      const columns = [...input.columns(rows), ...computedColumns(rows)];
+      if (writer === undefined) {
+        const estimates: CurveMeta[] = derivedList(rows.derived).map(({ correlation }) => ({
+          mnemonic: derivedCurveName(correlation.id),
+          unit: correlation.outputUnit,
+          // LAS descriptions end the line and may not hold a colon (CWLS LAS 2.0, the colon delimits them).
+          description: `EMPIRICAL ${correlation.kind.toUpperCase()} ${citationText(correlation.citation).replaceAll("doi:", "doi ").replaceAll(":", " -")}`,
+          format: computed,
+        }));
+        const curves: CurveMeta[] = [
+          ...input.curves,
+          ...OUTPUT_PROPERTIES.map((property) => ({ mnemonic: property.curve, unit: property.unit(units), description: property.description, format: computed })),
+          ...estimates,
+          { mnemonic: QC_CURVE, unit: "", description: "QC FLAG BIT MASK (SEE ~OTHER)", format: QC_FORMAT },
+        ];
+        const caution = estimates.length === 0 ? [] : ["EL_ curves named after a correlation are empirical estimates. " + CAUTION];
+        writer = createLasTextWriter({
+          header: header.format === "las" ? header.header.sections : undefined,
+          curves,
+          indexItems: header.format === "las" ? undefined : lasIndexItems({ ...curves[0], values: columns[0] }, String(plan.nullValue)),
+          nullValue: plan.nullValue,
+          parameters: optionItems(plan),
+          otherLines: [...qcLegend(invalidatingMask(plan.computation.keepNegativePoisson)), ...caution],
+        });
+        text.utf8(writer.begin(columns));
+      }
+      writer.rows(text, columns);
+    },
+  };
 };
+
+/** `"key":` as JSON text, for keys known before the rows. */
+const jsonKey = (key: string): string => `${JSON.stringify(key)}:`;
 
 /**
  * One JSON object per sample and line (NDJSON, application/x-ndjson) for line-oriented pipelines: the row
  * index, the depth when there is one, every property (null where invalid), each derived estimate by its id,
- * and the sample's flag codes.
+ * and the sample's flag codes. Numbers are written as JSON.stringify writes them (ECMA-262 Number::toString).
  */
-export function* ndjsonChunks(conversion: WellConversion, derived: Map<string, DerivedColumn> | undefined): Generator<string> {
-  const { log, depth } = conversion;
-  const columns = OUTPUT_PROPERTIES.map((property) => [property.key, property.column(log)] as const);
-  const estimates = derivedList(derived).map((column) => [column.correlation.id, column.values] as const);
-  const nullable = (value: number) => (Number.isNaN(value) ? null : value);
-  let chunk = "";
-  for (let i = 0; i < log.length; i++) {
-    const row: Record<string, unknown> = { index: i };
-    if (depth !== undefined) row.depth = nullable(depth[i]);
-    for (const [key, column] of columns) row[key] = nullable(column[i]);
-    for (const [id, values] of estimates) row[id] = nullable(values[i]);
-    row.flags = flagCodesOf(log.flags[i]);
-    chunk += `${JSON.stringify(row)}\n`;
-    if (chunk.length >= 64 * 1024) {
-      yield chunk;
-      chunk = "";
+const ndjsonOutput = (): WellOutput => ({
+  batch({ first, log, depth, derived }, text) {
+    const columns = [
+      ...(depth === undefined ? [] : [[`,${jsonKey("depth")}`, depth] as const]),
+      ...OUTPUT_PROPERTIES.map((property) => [`,${jsonKey(property.key)}`, property.column(log)] as const),
+      ...derivedList(derived).map((column) => [`,${jsonKey(column.correlation.id)}`, column.values] as const),
+    ];
+    const flagsKey = `,${jsonKey("flags")}`;
+    for (let i = 0; i < log.length; i++) {
+      text.ascii(`{"index":`);
+      writeShortest(text, first + i);
+      for (const [key, values] of columns) {
+        text.ascii(key);
+        const value = values[i];
+        if (Number.isFinite(value)) writeShortest(text, value);
+        else text.ascii("null");
+      }
+      text.ascii(flagsKey);
+      text.ascii(JSON.stringify(flagCodesOf(log.flags[i])));
+      text.ascii("}\n");
     }
-  }
-  if (chunk !== "") yield chunk;
-}
+  },
+});
+
+/** The writer of one output format for a file of this header, converted under this plan; `digits` as the query gave it. */
+export const createWellOutput = (format: TextFormat, header: WellHeader, plan: ConversionPlan, digits: string | undefined): WellOutput =>
+  format === "csv" ? csvOutput(header, plan, computedFormat(digits)) : format === "las" ? lasOutput(header, plan, computedFormat(digits)) : ndjsonOutput();

@@ -1,19 +1,17 @@
-import type { Readable } from "node:stream";
 import {
   createCsvReader,
   createLasReader,
   type CsvDocument,
+  type CsvReader,
+  type CurveInfo,
   type LasDocument,
+  type LasHeaderView,
+  type LasReader,
   type WellTable,
 } from "../core/index.js";
 import { ProblemError } from "./problems.js";
 
 export type WellFile = { format: "las"; las: LasDocument; table: WellTable } | { format: "csv"; csv: CsvDocument; table: WellTable };
-
-interface TextReader {
-  push(chunk: string): void;
-  end(): { table: WellTable };
-}
 
 /**
  * A LAS file begins with a `~` section line (after optional `#` comments and blank lines, CWLS LAS 2.0);
@@ -32,42 +30,76 @@ export const sniffFormat = (start: string): "las" | "csv" | undefined => {
   return undefined;
 };
 
+/** The header of a well file as far as converting its rows needs: what a streaming reader knows before the samples. */
+export type WellHeader =
+  | { format: "las"; header: LasHeaderView; curves: CurveInfo[]; nullValue: number | undefined }
+  | { format: "csv"; curves: CurveInfo[]; nullValue: undefined };
+
 /**
- * Reads a well file from a byte stream without holding its text: bytes are decoded as UTF-8
- * (invalid bytes become U+FFFD and reading goes on) and pushed to the LAS or CSV reader, which keep
- * only header lines and numeric columns.
+ * Reads a well file from bytes handed over in pieces, without holding its text: bytes are decoded as UTF-8
+ * (invalid bytes become U+FFFD and reading goes on) and pushed to the LAS or CSV reader, which keep only header
+ * lines and numeric columns. The format is judged from the first lines (`sniffFormat`).
  */
-export const readWellFile = async (stream: Readable): Promise<WellFile> => {
-  const decoder = new TextDecoder("utf-8");
-  let pending = "";
-  let format: "las" | "csv" | undefined;
-  let reader: TextReader | undefined;
-  const feed = (text: string) => {
+export class WellFileReader {
+  private readonly decoder = new TextDecoder("utf-8");
+  private pending = "";
+  private las: LasReader | undefined;
+  private csv: CsvReader | undefined;
+
+  push(bytes: Uint8Array): void {
+    this.feed(this.decoder.decode(bytes, { stream: true }));
+  }
+
+  /** The header once the samples begin (LAS `~A`, the CSV header line read); undefined before. */
+  header(): WellHeader | undefined {
+    const las = this.las?.header();
+    if (las !== undefined) return { format: "las", header: las, curves: las.curves, nullValue: las.nullValue };
+    const curves = this.csv?.curves();
+    return curves === undefined ? undefined : { format: "csv", curves, nullValue: undefined };
+  }
+
+  /** Removes and returns the complete rows read so far (see `LasReader.takeRows`). */
+  takeRows(): Float64Array[] {
+    return this.las?.takeRows() ?? this.csv?.takeRows() ?? [];
+  }
+
+  /** Ends the text: the file with the rows not taken; a ProblemError or WellFileError says why it cannot be read. */
+  end(): WellFile {
+    this.feed(this.decoder.decode());
+    if (this.las === undefined && this.csv === undefined) {
+      if (this.pending.trim() === "" || /^(\s*#[^\n]*\n?)*\s*$/.test(this.pending)) {
+        throw new ProblemError("unreadable-file", "The body holds no well data: send a LAS 2.0 or CSV file as the request body.");
+      }
+      this.csv = createCsvReader();
+      this.csv.push(this.pending);
+    }
+    if (this.las !== undefined) {
+      const las = this.las.end();
+      return { format: "las", las, table: las.table };
+    }
+    const csv = (this.csv as CsvReader).end();
+    return { format: "csv", csv, table: csv.table };
+  }
+
+  private feed(text: string): void {
+    const reader = this.las ?? this.csv;
     if (reader !== undefined) {
       reader.push(text);
       return;
     }
-    pending += text;
-    format = sniffFormat(pending);
+    this.pending += text;
+    const format = sniffFormat(this.pending);
     if (format === undefined) return;
-    reader = format === "las" ? createLasReader() : createCsvReader();
-    reader.push(pending);
-    pending = "";
-  };
-  for await (const chunk of stream) feed(decoder.decode(chunk as Buffer, { stream: true }));
-  feed(decoder.decode());
-  if (reader === undefined) {
-    if (pending.trim() === "" || /^(\s*#[^\n]*\n?)*\s*$/.test(pending)) {
-      throw new ProblemError("unreadable-file", "The body holds no well data: send a LAS 2.0 or CSV file as the request body.");
-    }
-    format = "csv";
-    reader = createCsvReader();
-    reader.push(pending);
+    if (format === "las") this.las = createLasReader();
+    else this.csv = createCsvReader();
+    (this.las ?? this.csv)?.push(this.pending);
+    this.pending = "";
   }
-  if (format === "las") {
-    const las = (reader as ReturnType<typeof createLasReader>).end();
-    return { format, las, table: las.table };
-  }
-  const csv = (reader as ReturnType<typeof createCsvReader>).end();
-  return { format: "csv", csv, table: csv.table };
+}
+
+/** Reads a whole well file from a byte stream (see `WellFileReader`). */
+export const readWellFile = async (stream: AsyncIterable<Uint8Array> | Iterable<Uint8Array>): Promise<WellFile> => {
+  const reader = new WellFileReader();
+  for await (const chunk of stream) reader.push(chunk);
+  return reader.end();
 };

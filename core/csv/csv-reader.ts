@@ -19,6 +19,13 @@ export interface CsvDocument {
 export interface CsvReader {
   /** Reads the next piece of text; chunks may split the text anywhere. */
   push(chunk: string): void;
+  /** The curves named by the header line, once it has been read; undefined before. */
+  curves(): CurveInfo[] | undefined;
+  /**
+   * Removes and returns the complete rows read so far, one array per curve (empty before the header), so that a
+   * caller can convert a file of any length batch by batch; `end` then holds only the rows not yet taken.
+   */
+  takeRows(): Float64Array[];
   /** Ends the text and returns what was read; throws `WellFileError` when it cannot be used. */
   end(): CsvDocument;
 }
@@ -42,7 +49,9 @@ const quote = (value: string): string => JSON.stringify(value.length > 40 ? `${v
 /** Fills growable columns from data records, one value per field, checking each row's width. */
 class ColumnSink implements CsvRecordSink {
   readonly columns: GrowableColumn[];
+  /** Complete rows read, taken or not. */
   rows = 0;
+  private untaken = 0;
   private column = 0;
 
   constructor(readonly curves: CurveInfo[]) {
@@ -74,6 +83,14 @@ class ColumnSink implements CsvRecordSink {
     }
     this.column = 0;
     this.rows++;
+    this.untaken++;
+  }
+
+  /** The complete rows not yet taken; a row still being read stays. */
+  take(): Float64Array[] {
+    const rows = this.untaken;
+    this.untaken = 0;
+    return this.columns.map((column) => column.take(rows));
   }
 }
 
@@ -169,7 +186,7 @@ export const createCsvReader = (options: CsvReaderOptions = {}): CsvReader => {
     };
   };
 
-  return { push, end };
+  return { push, curves: () => sink.data?.curves, takeRows: () => sink.data?.take() ?? [], end };
 };
 
 /** Reads a whole CSV text at once (see `createCsvReader`). */

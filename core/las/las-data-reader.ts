@@ -10,6 +10,8 @@ export interface LasDataReader {
    * throws when the last wrapped sample is incomplete.
    */
   finish(): { columns: Float64Array[]; wrapped: boolean };
+  /** Removes and returns the complete samples read so far, one array per curve (a wrapped sample still being read stays). */
+  take(): Float64Array[];
 }
 
 export interface LasDataReaderOptions {
@@ -127,5 +129,11 @@ export const createLasDataReader = (options: LasDataReaderOptions): LasDataReade
     return { columns: columns.map((column) => column.toFloat64Array()), wrapped: wrapped ?? false };
   };
 
-  return { line, finish };
+  // The last curve's value is the last one of a sample, so its column counts the complete samples.
+  const take = (): Float64Array[] => {
+    const complete = columns[curveCount - 1].length;
+    return columns.map((column) => column.take(complete));
+  };
+
+  return { line, finish, take };
 };

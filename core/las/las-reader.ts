@@ -1,4 +1,5 @@
 import { WellFileError } from "../well-file-error.js";
+import type { CurveInfo } from "../well-table.js";
 import { curvesFromItems } from "./las-curves.js";
 import { createLasDataReader, type LasDataReader } from "./las-data-reader.js";
 import {
@@ -15,9 +16,24 @@ import { recoverLegacyWellItem } from "./las-legacy-well-item.js";
 import { summariseWell } from "./las-well-summary.js";
 import { createLineSplitter } from "./text-line-splitter.js";
 
+/** What a streaming reader knows once `~A` begins: the header sections and the curves they describe. */
+export interface LasHeaderView {
+  sections: LasSection[];
+  curves: CurveInfo[];
+  /** `~Well` NULL, when the file gives one. */
+  nullValue: number | undefined;
+}
+
 export interface LasReader {
   /** Reads the next piece of the text; pieces may split a line or a number anywhere. */
   push(chunk: string): void;
+  /** The header, once the text has reached `~A`; undefined before. */
+  header(): LasHeaderView | undefined;
+  /**
+   * Removes and returns the complete samples read so far, one array per curve (empty before `~A`), so that a
+   * caller can convert a file of any length batch by batch; `end` then holds only the samples not yet taken.
+   */
+  takeRows(): Float64Array[];
   /** Reads the end of the text and returns the document; throws `WellFileError` when the file cannot be read. */
   end(): LasDocument;
 }
@@ -51,7 +67,7 @@ export const createLasReader = (): LasReader => {
   let current: LasSection | undefined;
   let version: { value: string; major: number } | undefined;
   let wrapped: boolean | undefined;
-  let data: { reader: LasDataReader; indexCheck: LasIndexCheck; line: number } | undefined;
+  let data: { reader: LasDataReader; indexCheck: LasIndexCheck; line: number; header: LasHeaderView; samples: number } | undefined;
   const legacyItems: LasHeaderItem[] = [];
   let sawReplacementCharacter = false;
   let lastLine = 0;
@@ -109,15 +125,19 @@ export const createLasReader = (): LasReader => {
     const versionLine = sections[0].line;
     if (version === undefined) warnings.push({ line: versionLine, message: "~Version has no VERS item; read as LAS 2.0" });
     if (wrapped === undefined) warnings.push({ line: versionLine, message: "~Version has no WRAP item; read as WRAP NO" });
-    const { numbers } = summariseWell(sections);
+    const { numbers, well } = summariseWell(sections);
     const indexCheck = createIndexCheck(numbers.STRT, numbers.STOP, numbers.STEP);
     const reader = createLasDataReader({
       curveCount,
       wrapped: wrapped ?? false,
-      onSample: indexCheck.sample,
+      onSample: (index, sampleLine) => {
+        if (data !== undefined) data.samples++;
+        indexCheck.sample(index, sampleLine);
+      },
       warn: (warningLine, message) => warnings.push({ line: warningLine, message }),
     });
-    data = { reader, indexCheck, line };
+    const header = { sections, curves: curvesFromItems(curveItemsOf(sections)).curves, nullValue: well.nullValue };
+    data = { reader, indexCheck, line, header, samples: 0 };
   };
 
   const startSection = (title: string, line: number): void => {
@@ -185,7 +205,7 @@ export const createLasReader = (): LasReader => {
         message: `LAS 1.2 value/description swap detected in ~Well (${mnemonics}): values taken from after the colon`,
       });
     }
-    if (columns[0].length === 0) allWarnings.push({ line: data.line, message: "~A holds no samples" });
+    if (data.samples === 0) allWarnings.push({ line: data.line, message: "~A holds no samples" });
     allWarnings.sort((a, b) => a.line - b.line);
     return {
       version: version?.value ?? "2.0",
@@ -197,7 +217,9 @@ export const createLasReader = (): LasReader => {
     };
   };
 
-  return { push: splitter.push, end };
+  const takeRows = (): Float64Array[] => data?.reader.take() ?? [];
+
+  return { push: splitter.push, header: () => data?.header, takeRows, end };
 };
 
 /** Reads a whole LAS text at once (see `createLasReader`). */

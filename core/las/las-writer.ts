@@ -1,5 +1,6 @@
 import { isItemSection, type LasDocument, type LasSection } from "./las-document.js";
 import { writeLasHeader, type LasItemToWrite } from "./las-header-writer.js";
+import { AsciiText, asciiString, writeNumber } from "../ascii-numbers.js";
 import { formatLasNumber, SHORTEST, type LasNumberFormat } from "./las-number-format.js";
 
 export interface LasCurveToWrite {
@@ -49,8 +50,9 @@ export const lasCurvesOf = (document: LasDocument): LasCurveToWrite[] => {
   }));
 };
 
-/** STRT, STOP and STEP of a new file: STEP is the regular spacing of the index, or 0 when it is irregular. */
-const indexItems = (index: LasCurveToWrite, format: (value: number) => string): LasItemToWrite[] => {
+/** STRT, STOP and STEP of a new file from its index curve: STEP is the regular spacing of the index, or 0 when it is irregular. */
+export const lasIndexItems = (index: LasCurveToWrite, nullText: string): LasItemToWrite[] => {
+  const format = (value: number): string => (Number.isFinite(value) ? formatLasNumber(value, index.format ?? SHORTEST) : nullText);
   const values = index.values;
   const first = values[0];
   const last = values[values.length - 1];
@@ -68,7 +70,6 @@ const indexItems = (index: LasCurveToWrite, format: (value: number) => string): 
 
 const checkInput = (input: LasWriteInput): void => {
   if (input.curves.length === 0) throw new RangeError("a LAS file needs at least one curve (the index)");
-  if (!Number.isFinite(input.nullValue)) throw new RangeError(`the null value must be a finite number, not ${input.nullValue}`);
   const length = input.curves[0].values.length;
   for (const curve of input.curves) {
     if (curve.values.length !== length) {
@@ -77,66 +78,111 @@ const checkInput = (input: LasWriteInput): void => {
   }
 };
 
+/** A LAS file described before its samples are known: the curves without values, and the index items of a new file. */
+export interface LasLayout extends Omit<LasWriteInput, "curves"> {
+  readonly curves: readonly Omit<LasCurveToWrite, "values">[];
+  /** STRT, STOP and STEP; needed only for a new file (no `header`), whose index range must be known in advance. */
+  readonly indexItems?: readonly LasItemToWrite[];
+}
+
+/** Writes a LAS file batch by batch, so that a file of any length is written in bounded memory. */
+export interface LasTextWriter {
+  /** The header, the curve-name comment line and `~A`; the column widths are set from the first rows of `sample`. */
+  begin(sample: readonly Float64Array[]): string;
+  /**
+   * Appends the data lines of a batch of rows (one array per curve; rows `from` to `to`, all by default) to `text`;
+   * consecutive batches give the text of one.
+   */
+  rows(text: AsciiText, columns: readonly Float64Array[], from?: number, to?: number): void;
+}
+
+const SPACE = 32;
+
 /**
- * Writes a LAS 2.0 file (WRAP NO, one sample per line, CRLF line ends as the CWLS standard's line
- * lengths assume) as text chunks of about `LAS_CHUNK_CHARACTERS`, so that a server can stream it.
- * The input is checked, and the header built, before the first chunk is asked for: a `RangeError`
- * names what cannot be written.
+ * A LAS 2.0 writer (WRAP NO, one sample per line, CRLF line ends as the CWLS standard's line lengths assume).
+ * The header is built at once: a `RangeError` names what cannot be written before any text is handed out.
+ */
+export const createLasTextWriter = (layout: LasLayout): LasTextWriter => {
+  if (layout.curves.length === 0) throw new RangeError("a LAS file needs at least one curve (the index)");
+  if (!Number.isFinite(layout.nullValue)) throw new RangeError(`the null value must be a finite number, not ${layout.nullValue}`);
+  const nullText = String(layout.nullValue);
+  const formats = layout.curves.map((curve) => curve.format ?? SHORTEST);
+  const header = writeLasHeader({
+    sections: layout.header ?? [],
+    curves: layout.curves.map(({ mnemonic, unit, value, description }) => ({ mnemonic, unit, value, description })),
+    indexItems: layout.indexItems ?? [],
+    nullValue: nullText,
+    wellItems: layout.wellItems ?? [],
+    parameters: layout.parameters ?? [],
+    otherLines: layout.otherLines ?? [],
+  });
+  let widths: number[] | undefined;
+  const checked = (columns: readonly Float64Array[]): number => {
+    if (columns.length !== layout.curves.length) throw new RangeError(`${layout.curves.length} curves but ${columns.length} columns`);
+    const length = columns[0].length;
+    columns.forEach((column, c) => {
+      if (column.length !== length) throw new RangeError(`curve ${layout.curves[c].mnemonic} has ${column.length} values but ${layout.curves[0].mnemonic} has ${length}`);
+    });
+    return length;
+  };
+  const write = (text: AsciiText, value: number, c: number): void => {
+    if (Number.isFinite(value)) writeNumber(text, value, formats[c]);
+    else text.ascii(nullText);
+  };
+  const begin = (sample: readonly Float64Array[]): string => {
+    checked(sample);
+    // Widths that line the columns up for typical values; a longer value still stands apart by one blank.
+    const scratch = new AsciiText(64);
+    widths = layout.curves.map((curve, c) => {
+      let width = curve.mnemonic.length;
+      for (const value of [NaN, ...sample[c].subarray(0, WIDTH_SAMPLE_ROWS)]) {
+        write(scratch, value, c);
+        width = Math.max(width, scratch.take().length);
+      }
+      return width;
+    });
+    const fixed = widths;
+    const names = layout.curves.map((curve, c) => curve.mnemonic.padStart(fixed[c])).join(" ");
+    return [header.join(LINE_END), LINE_END, "#", names, LINE_END, "~A", LINE_END].join("");
+  };
+  const rows = (text: AsciiText, columns: readonly Float64Array[], from = 0, to?: number): void => {
+    if (widths === undefined) throw new Error("begin() comes before the data lines");
+    const count = Math.min(checked(columns), to ?? Infinity);
+    for (let i = from; i < count; i++) {
+      for (let c = 0; c < columns.length; c++) {
+        text.byte(SPACE);
+        const start = text.length;
+        write(text, columns[c][i], c);
+        text.padFrom(start, widths[c] - (text.length - start));
+      }
+      text.byte(13);
+      text.byte(10);
+    }
+  };
+  return { begin, rows };
+};
+
+/**
+ * Writes a LAS 2.0 file (see `createLasTextWriter`) as text chunks of about `LAS_CHUNK_CHARACTERS`, so that a
+ * server can stream it. The input is checked, and the header built, before the first chunk is asked for: a
+ * `RangeError` names what cannot be written.
  */
 export const writeLas = (input: LasWriteInput): Generator<string> => {
   checkInput(input);
-  const nullText = String(input.nullValue);
-  const formatters = input.curves.map((curve) => {
-    const format = curve.format ?? SHORTEST;
-    return (value: number): string => (Number.isFinite(value) ? formatLasNumber(value, format) : nullText);
-  });
-  const header = writeLasHeader({
-    sections: input.header ?? [],
-    curves: input.curves.map(({ mnemonic, unit, value, description }) => ({ mnemonic, unit, value, description })),
-    indexItems: indexItems(input.curves[0], formatters[0]),
-    nullValue: nullText,
-    wellItems: input.wellItems ?? [],
-    parameters: input.parameters ?? [],
-    otherLines: input.otherLines ?? [],
-  });
-  return chunks(input.curves, formatters, header);
+  const writer = createLasTextWriter({ ...input, indexItems: lasIndexItems(input.curves[0], String(input.nullValue)) });
+  return chunks(writer, input.curves.map((curve) => curve.values));
 };
 
-/** Widths that line the columns up for typical values; a longer value still stands apart by one blank. */
-const columnWidths = (curves: readonly LasCurveToWrite[], formatters: ((value: number) => string)[]): number[] =>
-  curves.map((curve, c) => {
-    let width = curve.mnemonic.length;
-    let min = Infinity;
-    let max = -Infinity;
-    for (const value of curve.values) {
-      if (value < min) min = value;
-      if (value > max) max = value;
-    }
-    const candidates = [min, max, NaN, ...curve.values.subarray(0, WIDTH_SAMPLE_ROWS)];
-    for (const value of candidates) width = Math.max(width, formatters[c](value).length);
-    return width;
-  });
-
-function* chunks(
-  curves: readonly LasCurveToWrite[],
-  formatters: ((value: number) => string)[],
-  header: string[],
-): Generator<string> {
-  const widths = columnWidths(curves, formatters);
-  const names = curves.map((curve, c) => curve.mnemonic.padStart(widths[c])).join(" ");
-  let parts: string[] = [header.join(LINE_END), LINE_END, "#", names, LINE_END, "~A", LINE_END];
-  let size = parts.reduce((sum, part) => sum + part.length, 0);
-  const rows = curves[0].values.length;
+function* chunks(writer: LasTextWriter, columns: Float64Array[]): Generator<string> {
+  let head = writer.begin(columns);
+  const text = new AsciiText();
+  const rows = columns[0].length;
   for (let i = 0; i < rows; i++) {
-    let row = "";
-    for (let c = 0; c < curves.length; c++) row += " " + formatters[c](curves[c].values[i]).padStart(widths[c]);
-    parts.push(row, LINE_END);
-    size += row.length + LINE_END.length;
-    if (size >= LAS_CHUNK_CHARACTERS) {
-      yield parts.join("");
-      parts = [];
-      size = 0;
+    writer.rows(text, columns, i, i + 1);
+    if (head.length + text.length >= LAS_CHUNK_CHARACTERS) {
+      yield head + asciiString(text.take());
+      head = "";
     }
   }
-  if (parts.length > 0) yield parts.join("");
+  if (head !== "" || text.length > 0) yield head + asciiString(text.take());
 }

@@ -4,6 +4,16 @@ import fp from "fastify-plugin";
 import { ProblemError, type ProblemSlug } from "../problems.js";
 import { METRICS_PATH } from "./metrics.js";
 
+declare module "fastify" {
+  interface FastifyRequest {
+    /**
+     * SHA-256 of the request's API key (base64url) once it has been accepted; undefined without authentication.
+     * Tells clients apart (rate limiting) without keeping or logging the key itself.
+     */
+    apiKeyDigest: string | undefined;
+  }
+}
+
 export interface AuthenticationOptions {
   /** Accepted bearer keys (`API_KEYS`, comma-separated). Empty: no authentication at all. */
   apiKeys: readonly string[];
@@ -53,6 +63,7 @@ async function authenticationPlugin(app: FastifyInstance, options: Authenticatio
       throw new Error("API_KEYS: every key must be letters, digits and -._~+/ (RFC 6750 b64token), without spaces or empty entries");
     }
   }
+  app.decorateRequest("apiKeyDigest", undefined);
   if (options.apiKeys.length === 0) {
     if (options.metricsRequireAuth) throw new Error("METRICS_REQUIRE_AUTH is set but API_KEYS is empty: no key could ever open /metrics");
     return;
@@ -82,6 +93,7 @@ async function authenticationPlugin(app: FastifyInstance, options: Authenticatio
         "www-authenticate": challenge("invalid_token"),
       });
     }
+    request.apiKeyDigest = sha256(token).toString("base64url");
   });
 }
 

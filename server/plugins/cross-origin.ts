@@ -33,7 +33,9 @@ async function crossOriginPlugin(app: FastifyInstance, options: CrossOriginOptio
     origin: [...options.allowedOrigins],
     methods: ["GET", "POST", "OPTIONS"],
     allowedHeaders: ["content-type", "authorization", "x-request-id"],
-    exposedHeaders: ["x-request-id"],
+    // A page can read only the CORS-safelisted response headers unless told (Fetch standard): Retry-After
+    // and the rate-limit headers say when a refused request may be sent again.
+    exposedHeaders: ["x-request-id", "retry-after", "x-ratelimit-limit", "x-ratelimit-remaining", "x-ratelimit-reset"],
     maxAge: options.preflightMaxAgeSeconds ?? 600,
     // @fastify/cors answers an OPTIONS request without Origin with a text/plain 400; let it through instead,
     // so no answer of this service is anything but JSON or a problem document.

@@ -5,7 +5,7 @@ import { filterCorrelations, findCorrelation } from "../../core/index.js";
 import { CAUTION, correlationEntry } from "../derived-answer.js";
 import { ProblemError } from "../problems.js";
 import { correlationDescription, correlationFilter, correlationList } from "../schemas/correlations.js";
-import { commonProblemResponses } from "../schemas/problem.js";
+import { problemResponse, requestProblemResponses } from "../schemas/problem.js";
 
 /** The catalogue of published empirical correlations, with their citations and calibration ranges. */
 export default async function correlationRoutes(instance: FastifyInstance): Promise<void> {
@@ -19,7 +19,7 @@ export default async function correlationRoutes(instance: FastifyInstance): Prom
         summary: "The catalogue of empirical correlations (static Young's modulus, UCS, friction angle, Vs, density, brittleness).",
         description: `Filter by kind and lithology. ${CAUTION}`,
         querystring: correlationFilter,
-        response: { 200: correlationList, 400: commonProblemResponses[400] },
+        response: { 200: correlationList, 400: problemResponse(400), ...requestProblemResponses },
       },
     },
     async (request) => {
@@ -35,7 +35,7 @@ export default async function correlationRoutes(instance: FastifyInstance): Prom
         tags: ["correlations"],
         summary: "One correlation: formula, inputs and units, calibration ranges, citation and caveats.",
         params: z.object({ id: z.string().meta({ examples: ["static_e.lacy1997_sandstone"] }) }),
-        response: { 200: correlationDescription, 404: commonProblemResponses[404] },
+        response: { 200: correlationDescription, 404: problemResponse(404), ...requestProblemResponses },
       },
     },
     async (request) => {

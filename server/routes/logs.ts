@@ -1,11 +1,12 @@
 import { Readable } from "node:stream";
 import multipart from "@fastify/multipart";
-import type { FastifyInstance, FastifyRequest } from "fastify";
+import type { FastifyInstance, FastifyReply, FastifyRequest } from "fastify";
 import type { ZodTypeProvider } from "fastify-type-provider-zod";
 import { z } from "zod";
 import type { Zone } from "../../core/index.js";
 import { convertLogs, type ZoneWithList } from "../logs-task.js";
 import { sendAnswer } from "../answer-pool.js";
+import { convertWellStream } from "../well-stream.js";
 import { negotiateMediaType } from "../media-negotiation.js";
 import { PROBLEM_MEDIA_TYPE, ProblemError } from "../problems.js";
 import { logsJsonResponse, logsQuery, type LogsQuery } from "../schemas/logs.js";
@@ -63,16 +64,72 @@ const zonesFromPart = (value: unknown): ZoneWithList[] => {
   return result.data;
 };
 
+/** busboy's own errors (no boundary, a body cut before its closing boundary) are a malformed request, not a fault. */
+const multipartProblem = (error: unknown): unknown => {
+  const status = (error as { statusCode?: number }).statusCode;
+  if (error instanceof ProblemError || (status !== undefined && status < 500)) return error;
+  return new ProblemError("malformed-body", `The multipart/form-data body could not be read: ${(error as Error).message}.`);
+};
+
+const ZONES_NEED_JSON = "Zone statistics are part of the JSON answer: ask for format=json, or leave zones out for CSV, LAS and NDJSON.";
+
 /** The well file and zones of a multipart upload: exactly one file part, optionally a `zones` part. */
 const readMultipart = async (request: FastifyRequest, byteLimit: number): Promise<{ chunks: Buffer[]; zones?: ZoneWithList[] }> => {
   try {
     return await readMultipartParts(request, byteLimit);
   } catch (error) {
-    const status = (error as { statusCode?: number }).statusCode;
-    if (error instanceof ProblemError || (status !== undefined && status < 500)) throw error;
-    // busboy's own errors (no boundary, a body cut before its closing boundary) are a malformed request, not a fault.
-    throw new ProblemError("malformed-body", `The multipart/form-data body could not be read: ${(error as Error).message}.`);
+    throw multipartProblem(error);
   }
+};
+
+/** The bytes of the one file part of a multipart upload as they arrive, for an answer without zones. */
+async function* multipartFile(request: FastifyRequest): AsyncGenerator<Buffer> {
+  let seen = false;
+  try {
+    for await (const part of request.parts()) {
+      if (part.fieldname === "zones") {
+        throw new ProblemError("invalid-request", ZONES_NEED_JSON, [{ field: "body.zones", message: "zones need format=json" }]);
+      }
+      if (part.type !== "file") throw new ProblemError("invalid-request", `Unknown form field "${part.fieldname}": send one file part and optionally a zones part.`);
+      if (seen) throw new ProblemError("invalid-request", "Send one well file per request; this upload has several file parts.");
+      seen = true;
+      for await (const chunk of part.file) yield chunk as Buffer;
+      if (part.file.truncated) throw new ProblemError("body-too-large", "The file part is larger than this endpoint's limit of FILE_BODY_LIMIT_BYTES bytes.");
+    }
+  } catch (error) {
+    throw multipartProblem(error);
+  }
+  if (!seen) throw new ProblemError("invalid-request", "The multipart upload has no file part: use curl -F file=@well.las.");
+}
+
+/**
+ * Output held before the answer starts: a problem found in the file within it still gets its 422 answer. Beyond it
+ * the answer is streamed, and a problem found later can only cut the answer short (the client sees an incomplete
+ * transfer, and the service logs why).
+ */
+export const HELD_ANSWER_BYTES = 8 * 1024 * 1024;
+
+const streamAnswer = async (request: FastifyRequest, reply: FastifyReply, pieces: AsyncGenerator<Buffer>, contentType: string) => {
+  const head: Buffer[] = [];
+  let size = 0;
+  while (size < HELD_ANSWER_BYTES) {
+    const next = await pieces.next();
+    if (next.done) return reply.type(contentType).send(Buffer.concat(head));
+    head.push(next.value);
+    size += next.value.length;
+  }
+  async function* rest(): AsyncGenerator<Buffer> {
+    while (head.length > 0) yield head.shift() as Buffer;
+    try {
+      yield* pieces;
+    } catch (error) {
+      const problem = error instanceof ProblemError ? { slug: error.slug, detail: error.detail } : undefined;
+      request.log.warn({ problem }, "answer cut short: the file failed after streaming had begun");
+      throw error;
+    }
+  }
+  // The type provider types reply bodies from the JSON schema; a stream of text is sent as it is.
+  return reply.type(contentType).send(Readable.from(rest()) as unknown as string);
 };
 
 const readMultipartParts = async (request: FastifyRequest, byteLimit: number): Promise<{ chunks: Buffer[]; zones?: ZoneWithList[] }> => {
@@ -161,6 +218,18 @@ export default async function logsRoutes(instance: FastifyInstance, options: Log
       const query = request.query;
       const format = chooseFormat(query, request.headers.accept);
       let zones: ZoneWithList[] | undefined = zonesFromQuery(query.zones);
+      if (query.digits !== undefined && (format === "json" || format === "ndjson")) {
+        throw new ProblemError("invalid-request", `digits sets how CSV and LAS answers write computed values; ${format.toUpperCase()} answers always carry full doubles.`, [
+          { field: "query.digits", message: `not available with format ${format}` },
+        ]);
+      }
+      if (format !== "json") {
+        if (zones !== undefined) throw new ProblemError("invalid-request", ZONES_NEED_JSON, [{ field: "query.zones", message: `not available with format ${format}` }]);
+        const source = request.isMultipart() ? multipartFile(request) : (request.body as Readable);
+        const task = { query, format, maxSamples: options.maxSamples, byteLimit: options.fileBodyLimitBytes };
+        const pieces = convertWellStream(source, task, (summary) => app.elasticMetrics.recordConversion(summary.count, summary.flags));
+        return streamAnswer(request, reply, pieces, CONTENT_TYPES[format]);
+      }
       let chunks: Buffer[];
       if (request.isMultipart()) {
         const upload = await readMultipart(request, options.fileBodyLimitBytes);
@@ -169,15 +238,11 @@ export default async function logsRoutes(instance: FastifyInstance, options: Log
       } else {
         chunks = await readBytes(request.body as Readable, options.fileBodyLimitBytes);
       }
-      const task = { chunks, query, zones, format, maxSamples: options.maxSamples };
+      const task = { chunks, query, zones, maxSamples: options.maxSamples };
       const bytes = chunks.reduce((sum, chunk) => sum + chunk.length, 0);
-      const result = bytes <= INLINE_FILE_BYTES ? await convertLogs(task) : await app.answerPool.logs(task);
-      const summary = result.kind === "json" ? result.answer.summary : result.summary;
-      app.elasticMetrics.recordConversion(summary.count, summary.flags);
-      if (result.kind === "json") return sendAnswer(reply, result.answer, app.answerPool);
-      const body = Readable.from(result.pieces.map((piece) => Buffer.from(piece.buffer, piece.byteOffset, piece.byteLength)));
-      // The type provider types reply bodies from the JSON schema; a stream of text is sent as it is.
-      return reply.type(CONTENT_TYPES[format as Exclude<Format, "json">]).send(body as unknown as string);
+      const answer = bytes <= INLINE_FILE_BYTES ? await convertLogs(task) : await app.answerPool.logs(task);
+      app.elasticMetrics.recordConversion(answer.summary.count, answer.summary.flags);
+      return sendAnswer(reply, answer, app.answerPool);
     },
   );
 }

@@ -2,7 +2,7 @@ import type { FastifyInstance } from "fastify";
 import type { ZodTypeProvider } from "fastify-type-provider-zod";
 import { z } from "zod";
 import { PROBLEM_KINDS, ProblemError, problemTypeUri, type ProblemSlug } from "../problems.js";
-import { commonProblemResponses } from "../schemas/problem.js";
+import { problemResponse } from "../schemas/problem.js";
 
 const problemKind = z
   .object({ type: z.string(), title: z.string(), status: z.int(), how_to_fix: z.string() })
@@ -29,7 +29,7 @@ export default async function referenceRoutes(instance: FastifyInstance): Promis
         tags: ["reference"],
         summary: "What a kind of problem means and how to fix the request.",
         params: z.object({ slug: z.string().meta({ examples: ["invalid-request"] }) }),
-        response: { 200: problemKind, 404: commonProblemResponses[404] },
+        response: { 200: problemKind, 404: problemResponse(404) },
       },
     },
     async (request) => {

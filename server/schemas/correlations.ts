@@ -50,7 +50,10 @@ export const correlationIds = z
 
 export const correlationOptions = z
   .record(z.string(), z.record(z.string(), z.number()))
-  .meta({ description: "Options per correlation id, e.g. {\"brittleness.rickman2008\": {\"e_min_mpsi\": 1, \"e_max_mpsi\": 8}}." });
+  .meta({
+    description:
+      "Options per correlation id, e.g. {\"brittleness.rickman2008\": {\"e_min_mpsi\": 1, \"e_max_mpsi\": 8}}. Each id must be one the request applies (in correlations or a zone's correlations) and each option one that correlation has (GET /v1/correlations/{id} lists them); anything else is a 400.",
+  });
 
 export const fillMode = z
   .enum(["nulls", "all"])

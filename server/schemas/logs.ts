@@ -24,6 +24,14 @@ export const logsQuery = z.strictObject({
     .enum(["json", "csv", "las", "ndjson"])
     .optional()
     .meta({ description: "Answer format; overrides Accept (application/json, text/csv, application/x-las, application/x-ndjson)." }),
+  digits: z
+    .string()
+    .regex(/^(exact|[1-9]|1[0-5])$/, "expected a whole number from 1 to 15, or exact")
+    .optional()
+    .meta({
+      description:
+        "Significant digits of the computed values in CSV and LAS answers (1–15, default 8, correctly rounded, trailing zeros dropped), or `exact` for the shortest text that reads back as the same double. Input curves are always written back exactly as read; JSON and NDJSON answers always carry full doubles.",
+    }),
   modulus_unit: modulusUnit.default(DEFAULT_UNITS.modulus),
   velocity_unit: velocityUnit.default(DEFAULT_UNITS.velocity).meta({ description: "Unit of the vp and vs columns of the answer." }),
   impedance_unit: impedanceUnit.default(DEFAULT_UNITS.impedance),

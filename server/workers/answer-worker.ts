@@ -27,15 +27,17 @@ export function prepare({ body, maxSamples, format }: { body: ColumnsBody; maxSa
 
 /** Task `serialize`: columns as JSON text, ASCII bytes (numbers, commas, brackets and null only). */
 export function serialize({ columns }: { columns: Float64Array[] }) {
-  const texts = columns.map((column) => Buffer.from(columnJson(column), "latin1"));
+  // TextEncoder gives each text its own ArrayBuffer (a small Buffer.from would share Node's pool, which must not move).
+  const encoder = new TextEncoder();
+  const texts = columns.map((column) => encoder.encode(columnJson(column)));
   return transferring({ texts }, texts.map((text) => text.buffer));
 }
 
-/** Task `logs`: read, convert and write a whole well. */
+/** Task `logs`: read and convert a whole well for a JSON answer. */
 export async function logs(task: LogsTask) {
   try {
     const result = await convertLogs(task);
-    const buffers = result.kind === "json" ? result.answer.columns.map((column) => column.buffer) : result.pieces.map((piece) => piece.buffer);
+    const buffers = result.columns.map((column) => column.buffer);
     return transferring({ ok: result } satisfies Outcome<LogsResult>, buffers);
   } catch (error) {
     if (isProblemError(error)) return { problem: { slug: error.slug, detail: error.detail, errors: error.errors } } satisfies Outcome<LogsResult>;

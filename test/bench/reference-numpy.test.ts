@@ -3,9 +3,10 @@ import { mkdtempSync, readFileSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
-import { computeElasticLog, summariseFlags } from "../../core/index.js";
+import { computeElasticLog, parseCsv, summariseFlags } from "../../core/index.js";
 import { REFERENCE_SCRIPT, numpyMissing, writeWellFile } from "../../bench/file-cases.js";
 import { syntheticWell, syntheticWellCsv, syntheticWellRequest } from "../../bench/synthetic-well.js";
+import { build } from "../helpers/build.js";
 import { relativeError } from "../helpers/elastic.js";
 
 const missing = numpyMissing();
@@ -62,4 +63,52 @@ describe("bench/reference_numpy.py, the script the benchmark compares the servic
       expect(disagreements.slice(0, 10)).toEqual([]);
     },
   );
+});
+
+describe("the service beside bench/reference_numpy.py on the same CSV file (what the benchmark times)", () => {
+  const well = syntheticWell(3000, 13);
+  const text = [...syntheticWellCsv(well)].join("");
+
+  /** The script's answer to `digits` significant digits, and the service's CSV answer with `query`. */
+  const both = async (digits: number, query: string) => {
+    const folder = mkdtempSync(join(tmpdir(), "elastilog-reference-"));
+    let script: ReturnType<typeof readOutput>;
+    try {
+      const source = writeWellFile(join(folder, "marram-bank-7.csv"), [text]);
+      const target = join(folder, "moduli.csv");
+      execFileSync("python3", [REFERENCE_SCRIPT, source, target, String(digits)], { timeout: 60_000 });
+      script = readOutput(target);
+    } finally {
+      rmSync(folder, { recursive: true, force: true });
+    }
+    const app = await build();
+    const answer = await app.inject({ method: "POST", url: `/v1/logs?format=csv${query}`, payload: text, headers: { "content-type": "text/csv" } });
+    expect(answer.statusCode).toBe(200);
+    const table = parseCsv(answer.body).table;
+    const service = (mnemonic: string) => table.columns[table.curves.findIndex((curve) => curve.mnemonic === mnemonic)];
+    const pairs = ["EL_E", "EL_NU", "EL_G", "EL_K", "EL_LAMBDA", "EL_M", "EL_VPVS"].map((mnemonic, c) => ({ mnemonic, ours: service(mnemonic), theirs: script.columns[c + 1] }));
+    return pairs;
+  };
+
+  it.skipIf(missing !== undefined)("agree on every value to 1e-9 relative with full precision on both sides (digits=exact, the script's %.17g)", async () => {
+    const disagreements: string[] = [];
+    for (const { mnemonic, ours, theirs } of await both(17, "&digits=exact")) {
+      expect(ours).toHaveLength(well.depthMetres.length);
+      ours.forEach((value, i) => {
+        const agree = Number.isNaN(value) ? Number.isNaN(theirs[i]) : relativeError(theirs[i], value) <= 1e-9;
+        if (!agree) disagreements.push(`${mnemonic}[${i}]: service ${value}, script ${theirs[i]}`);
+      });
+    }
+    expect(disagreements.slice(0, 10)).toEqual([]);
+  });
+
+  it.skipIf(missing !== undefined)("write the same numbers at the benchmark's 8 significant digits (service default, the script's %.8g; both correctly rounded)", async () => {
+    const disagreements: string[] = [];
+    for (const { mnemonic, ours, theirs } of await both(8, "")) {
+      ours.forEach((value, i) => {
+        if (!Object.is(value, theirs[i]) && !(Number.isNaN(value) && Number.isNaN(theirs[i]))) disagreements.push(`${mnemonic}[${i}]: service ${value}, script ${theirs[i]}`);
+      });
+    }
+    expect(disagreements.slice(0, 10)).toEqual([]);
+  });
 });

@@ -4,7 +4,7 @@ import { describe, expect, it } from "vitest";
 import { parse } from "yaml";
 import { FLAG_CODES } from "../../core/index.js";
 import { generateOpenApiYaml } from "../../server/openapi-document.js";
-import { PROBLEM_KINDS } from "../../server/problems.js";
+import { PROBLEM_KINDS, problemTypeUri, type ProblemSlug } from "../../server/problems.js";
 import { build } from "../helpers/build.js";
 
 const committed = readFileSync(new URL("../../openapi.yaml", import.meta.url), "utf8");
@@ -37,6 +37,42 @@ describe("openapi.yaml", () => {
       }
     }
     expect(Object.keys(PROBLEM_KINDS).length).toBeGreaterThan(5);
+  });
+
+  it("lists every problem type URI: in the Problem schema's type, and under components.responses by status (RFC 9457 §3.1.1 type)", () => {
+    const document = parse(committed);
+    const typeSchema = document.components.schemas.Problem.properties.type;
+    const slugs = Object.keys(PROBLEM_KINDS) as ProblemSlug[];
+    expect([...typeSchema.enum].sort()).toEqual(slugs.map(problemTypeUri).sort());
+    for (const slug of slugs) {
+      const { status, title } = PROBLEM_KINDS[slug];
+      expect(committed, slug).toContain(`/problems/${slug}`);
+      expect(typeSchema.description, slug).toContain(`| ${problemTypeUri(slug)} | ${status} | ${title} |`);
+      const response = document.components.responses[`Problem${status}`];
+      expect(response.description, slug).toContain(`\`${problemTypeUri(slug)}\``);
+      expect(response.content["application/problem+json"].schema).toEqual({ $ref: "#/components/schemas/Problem" });
+    }
+    // RFC 9110 §10.2.3 and §10.2.1, RFC 6750 §3: the headers that tell a client what to do next.
+    expect(Object.keys(document.components.responses.Problem429.headers)).toEqual(["Retry-After", "x-ratelimit-limit", "x-ratelimit-remaining", "x-ratelimit-reset"]);
+    expect(Object.keys(document.components.responses.Problem503.headers)).toEqual(["Retry-After"]);
+    expect(Object.keys(document.components.responses.Problem405.headers)).toEqual(["Allow"]);
+    expect(Object.keys(document.components.responses.Problem401.headers)).toEqual(["WWW-Authenticate"]);
+  });
+
+  it("documents the statuses any /v1/ request may get as problem+json on every /v1/ operation", () => {
+    const document = parse(committed);
+    const operations = Object.entries(document.paths as Record<string, Record<string, { responses: Record<string, { content?: object }> }>>)
+      .filter(([path]) => path.startsWith("/v1/"))
+      .flatMap(([path, methods]) => Object.entries(methods).map(([method, operation]) => [`${method} ${path}`, operation] as const));
+    expect(operations.length).toBeGreaterThanOrEqual(5);
+    for (const [name, operation] of operations) {
+      for (const status of ["401", "408", "429", "431", "500", "503"]) {
+        expect(operation.responses[status]?.content, `${name} ${status}`).toHaveProperty(["application/problem+json"]);
+      }
+    }
+    for (const operation of [document.paths["/v1/elastic"].get, document.paths["/v1/elastic"].post, document.paths["/v1/logs"].post]) {
+      for (const status of ["400", "406", "413", "415"]) expect(operation.responses[status].content).toHaveProperty(["application/problem+json"]);
+    }
   });
 
   it("is served at /openapi.yaml and /openapi.json, and /docs renders an interactive reference", async () => {

@@ -55,6 +55,41 @@ describe("operations wired into the app", () => {
     expect(() => readConfig({ MAX_EVENT_LOOP_UTILIZATION: "2" })).toThrow(/fraction from 0 to 1/);
   });
 
+  it("rate limiting is off by default: many /v1/ requests from one client pass, without rate-limit headers", async () => {
+    const app = await build();
+    for (let i = 0; i < 25; i++) {
+      const answer = await app.inject({ url: "/v1/elastic?vp=3000&vs=1500&rho=2.4" });
+      expect(answer.statusCode).toBe(200);
+      expect(answer.headers["x-ratelimit-limit"]).toBeUndefined();
+    }
+  });
+
+  it("with RATE_LIMIT_MAX, /v1/* answers 429 problem+json with Retry-After over the limit, the probes stay open, and CORS headers reach the 429", async () => {
+    const origin = "https://logs.example";
+    const app = await build({ config: { rateLimitMax: 2, rateLimitWindowMs: 30_000, corsOrigins: [origin] } });
+    const point = { url: "/v1/elastic?vp=3000&vs=1500&rho=2.4", headers: { origin } };
+    expect((await app.inject(point)).statusCode).toBe(200);
+    expect((await app.inject({ method: "POST", url: "/v1/elastic", payload: { vp: [3000], vs: [1500], rho: [2.4] } })).statusCode).toBe(200);
+    const refused = await app.inject(point);
+    expect(refused.statusCode).toBe(429);
+    expect(refused.headers["content-type"]).toMatch(/^application\/problem\+json/);
+    expect(Number(refused.headers["retry-after"])).toBeGreaterThanOrEqual(1);
+    expect(refused.headers["access-control-allow-origin"]).toBe(origin);
+    expect(refused.json()).toMatchObject({ type: "/problems/rate-limited", status: 429, request_id: refused.headers["x-request-id"] });
+    for (const url of ["/livez", "/readyz", "/metrics", "/openapi.yaml", "/problems/rate-limited"]) {
+      expect((await app.inject({ url })).statusCode, url).toBe(200);
+    }
+    const metrics = (await app.inject({ url: "/metrics" })).body;
+    expect(metrics).toMatch(/elastilog_http_requests_total\{method="GET",route="\/v1\/elastic",status_code="429"\} 1\b/);
+  });
+
+  it("reads RATE_LIMIT_MAX and RATE_LIMIT_WINDOW_MS (default: off, 60 s windows) and refuses a limit that is not a whole number", () => {
+    expect(readConfig({})).toMatchObject({ rateLimitMax: 0, rateLimitWindowMs: 60_000 });
+    expect(readConfig({ RATE_LIMIT_MAX: "100", RATE_LIMIT_WINDOW_MS: "1000" })).toMatchObject({ rateLimitMax: 100, rateLimitWindowMs: 1000 });
+    expect(() => readConfig({ RATE_LIMIT_MAX: "ten" })).toThrow(/RATE_LIMIT_MAX must be a whole number of requests, got "ten"/);
+    expect(() => readConfig({ RATE_LIMIT_WINDOW_MS: "1.5" })).toThrow(/RATE_LIMIT_WINDOW_MS must be a whole number of milliseconds/);
+  });
+
   it("the HTML reference at /docs carries a Content-Security-Policy", async () => {
     const app = await build();
     const docs = await app.inject({ url: "/docs/" });

@@ -226,3 +226,30 @@ describe("parseCsv errors", () => {
     }
   });
 });
+
+describe("createCsvReader handing out rows as they are read (takeRows)", () => {
+  it("the rows taken after each chunk, then those left at the end, are the rows of the whole text, whole records only (property: any split points)", () => {
+    // A quoted header cell holding the delimiter, a quoted number, CRLF and LF, an empty cell, no final line break (RFC 4180 §2 rules 2, 5, 6).
+    const text = '# a comment first\r\nDEPT[m],"DTC, sonic [us/ft]",RHOB[g/cm3]\r\n1000,100,2.3\r\n1000.5,"95",\n1001,90,2.4\r\n1001.5,88,2.45';
+    const expected = parseCsv(text);
+    expect(expected.table.columns[0]).toHaveLength(4);
+    fc.assert(
+      fc.property(fc.uniqueArray(fc.integer({ min: 1, max: text.length - 1 }), { maxLength: 10 }), (cuts) => {
+        const points = [0, ...cuts.sort((a, b) => a - b), text.length];
+        const reader = createCsvReader();
+        const taken: number[][] = [];
+        const take = (columns: Float64Array[]) => columns.forEach((column, c) => (taken[c] ??= []).push(...column));
+        for (let i = 1; i < points.length; i++) {
+          reader.push(text.slice(points[i - 1], points[i]));
+          const rows = reader.takeRows();
+          expect(new Set(rows.map((column) => column.length)).size).toBeLessThanOrEqual(1);
+          take(rows);
+        }
+        const document = reader.end();
+        take(document.table.columns);
+        expect(reader.curves()).toEqual(expected.table.curves);
+        expect(taken.map((column) => column.map(String))).toEqual(columnsOf(expected).map((column) => column.map(String)));
+      }),
+    );
+  });
+});

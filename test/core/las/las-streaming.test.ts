@@ -73,3 +73,51 @@ describe("createLasReader fed in chunks", () => {
     }
   });
 });
+
+/** Rows taken after every chunk, then those left at the end, joined per curve. */
+const takenInChunks = (chunks: readonly string[]) => {
+  const reader = createLasReader();
+  const taken: number[][] = [];
+  const take = (columns: Float64Array[]) => columns.forEach((column, c) => (taken[c] ??= []).push(...column));
+  for (const chunk of chunks) {
+    reader.push(chunk);
+    take(reader.takeRows());
+  }
+  const document = reader.end();
+  take(document.table.columns);
+  return { document, taken, header: reader.header() };
+};
+
+describe("createLasReader handing out rows as they are read (takeRows)", () => {
+  it.each(FIXTURES)("%s: the rows taken after each chunk, then those left, are the rows of the whole text, whole samples only", (name) => {
+    const text = lasFixture(name).replaceAll("\n", "\r\n");
+    const whole = parseLas(text);
+    for (const size of [1, 7, 64]) {
+      const { document, taken, header } = takenInChunks(cutEvery(text, size));
+      expect(taken.map((column) => Float64Array.from(column))).toEqual(whole.table.columns);
+      expect(document.warnings).toEqual(whole.warnings);
+      expect(header?.curves).toEqual(whole.table.curves);
+      expect(header?.nullValue).toEqual(whole.well.nullValue);
+    }
+  });
+
+  it("takes nothing before ~A, and never part of a wrapped sample (property: any split points)", () => {
+    const text = lasFixture("wrapped.las").replaceAll("\n", "\r\n");
+    const whole = parseLas(text);
+    fc.assert(
+      fc.property(fc.uniqueArray(fc.integer({ min: 1, max: text.length - 1 }), { maxLength: 12 }), (cuts) => {
+        const points = [0, ...cuts.sort((a, b) => a - b), text.length];
+        const chunks = points.slice(1).map((end, i) => text.slice(points[i], end));
+        const reader = createLasReader();
+        for (const chunk of chunks) {
+          reader.push(chunk);
+          const rows = reader.takeRows();
+          if (reader.header() === undefined) expect(rows).toEqual([]);
+          else expect(new Set(rows.map((column) => column.length)).size).toBeLessThanOrEqual(1);
+        }
+        const { taken } = takenInChunks(chunks);
+        expect(taken.map((column) => Float64Array.from(column))).toEqual(whole.table.columns);
+      }),
+    );
+  });
+});

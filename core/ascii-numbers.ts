@@ -1,0 +1,210 @@
+/**
+ * Numbers written as ASCII bytes straight into a growing buffer, for the big text answers (CSV, LAS):
+ * no string per number, no UTF-8 encoding afterwards. Each writer gives exactly the text of its
+ * ECMAScript counterpart (ECMA-262 Number::toString, Number.prototype.toPrecision), which the tests check
+ * on random doubles; the fast paths cover the values logs hold, anything else goes through the counterpart.
+ */
+
+/** Significant digits that every double carries through a decimal round trip (IEEE 754 binary64: 15, C's DBL_DIG). */
+export const MAX_EXACT_DIGITS = 15;
+
+const POWERS = Array.from({ length: 23 }, (_, k) => 10 ** k);
+/** Below this magnitude Number::toString writes an exponent (1e-7), and so do these writers. */
+const SMALLEST_PLAIN = 1e-6;
+/** Integers below this are exact doubles and are unique at 15 digits: m / 10^k reads back as one double only. */
+const LARGEST_MANTISSA = 1e15;
+const ZERO = 48;
+const DOT = 46;
+const MINUS = 45;
+const SPACE = 32;
+
+const UTF8 = new TextEncoder();
+const ASCII = new TextDecoder("ascii");
+
+/** Bytes that hold ASCII only, as a string. */
+export const asciiString = (bytes: Uint8Array): string => ASCII.decode(bytes);
+
+/** An ASCII text built byte by byte; `bytes()` hands out what was written. */
+export class AsciiText {
+  private buffer: Uint8Array;
+  length = 0;
+
+  constructor(capacity = 1 << 16) {
+    this.buffer = new Uint8Array(capacity);
+  }
+
+  private ensure(extra: number): void {
+    if (this.length + extra <= this.buffer.length) return;
+    const larger = new Uint8Array(Math.max(this.buffer.length * 2, this.length + extra));
+    larger.set(this.buffer.subarray(0, this.length));
+    this.buffer = larger;
+  }
+
+  /** Appends text that is pure ASCII (callers pass only digits, signs, separators and ASCII names). */
+  ascii(text: string): void {
+    this.ensure(text.length);
+    for (let i = 0; i < text.length; i++) this.buffer[this.length++] = text.charCodeAt(i);
+  }
+
+  byte(code: number): void {
+    this.ensure(1);
+    this.buffer[this.length++] = code;
+  }
+
+  /** Moves the text written since `from` right by `count` bytes and fills the gap with blanks (right-aligned columns). */
+  padFrom(from: number, count: number): void {
+    if (count <= 0) return;
+    this.ensure(count);
+    this.buffer.copyWithin(from + count, from, this.length);
+    this.buffer.fill(SPACE, from, from + count);
+    this.length += count;
+  }
+
+  /** Appends any text, UTF-8 encoded (header lines may hold names in any script). */
+  utf8(text: string): void {
+    const bytes = UTF8.encode(text);
+    this.ensure(bytes.length);
+    this.buffer.set(bytes, this.length);
+    this.length += bytes.length;
+  }
+
+  /** The bytes written so far, copied out, and the text emptied. */
+  take(): Uint8Array {
+    const bytes = this.buffer.slice(0, this.length);
+    this.length = 0;
+    return bytes;
+  }
+
+  /** Writes the integer `mantissa` (0 ≤ mantissa < 1e15) with a decimal point `decimals` places from its right, trailing zeros dropped. */
+  decimal(negative: boolean, mantissa: number, decimals: number): void {
+    let m = mantissa;
+    let k = decimals;
+    while (k > 0) {
+      const next = Math.floor(m / 10);
+      if (m !== next * 10) break;
+      m = next;
+      k--;
+    }
+    let digits = 1;
+    while (digits < 16 && m >= POWERS[digits]) digits++;
+    const integerDigits = digits > k ? digits - k : 1;
+    const size = (negative ? 1 : 0) + integerDigits + (k > 0 ? 1 + k : 0);
+    if (this.length + size > this.buffer.length) this.ensure(size);
+    const buffer = this.buffer;
+    let at = this.length + size;
+    this.length = at;
+    // Digits from the right; below 2^31 in integer arithmetic, which is faster.
+    for (let i = 0; i < k; i++) {
+      if (m < 2147483648) {
+        const next = ((m as number) / 10) | 0;
+        buffer[--at] = ZERO + (m - next * 10);
+        m = next;
+      } else {
+        const next = Math.floor(m / 10);
+        buffer[--at] = ZERO + (m - next * 10);
+        m = next;
+      }
+    }
+    if (k > 0) buffer[--at] = DOT;
+    for (let i = 0; i < integerDigits; i++) {
+      const next = m < 2147483648 ? ((m / 10) | 0) : Math.floor(m / 10);
+      buffer[--at] = ZERO + (m - next * 10);
+      m = next;
+    }
+    if (negative) buffer[--at] = MINUS;
+  }
+}
+
+/**
+ * `value` as the shortest text that reads back as the same double: the text of `String(value)`.
+ * Fast when the value is a decimal of at most 15 significant digits between 1e-6 and 1e15 (what a log holds).
+ */
+export const writeShortest = (text: AsciiText, value: number): void => {
+  const magnitude = Math.abs(value);
+  if (magnitude >= SMALLEST_PLAIN && magnitude < LARGEST_MANTISSA) {
+    for (let k = 0; k <= MAX_EXACT_DIGITS; k++) {
+      const mantissa = Math.round(magnitude * POWERS[k]);
+      if (mantissa >= LARGEST_MANTISSA) break;
+      // m / 10^k is correctly rounded (both exact), so equality means the decimal reads back as this double.
+      if (mantissa / POWERS[k] === magnitude) {
+        text.decimal(value < 0, mantissa, k);
+        return;
+      }
+    }
+  }
+  text.ascii(String(value));
+};
+
+/** A value so near a rounding tie that the scaled product's own rounding could decide it: left to toPrecision. */
+const NEAR_TIE = 1e-6;
+
+/**
+ * `magnitude` scaled so that `digits` digits stand before the point (exponent = the power of ten of its first
+ * digit) and rounded half up, or -1 when the product's own rounding could decide a near tie.
+ */
+const roundedMantissa = (magnitude: number, exponent: number, digits: number): number => {
+  const decimals = digits - 1 - exponent;
+  if (decimals > 22 || decimals < -22) return -1;
+  const scaled = decimals >= 0 ? magnitude * POWERS[decimals] : magnitude / POWERS[-decimals];
+  const floor = Math.floor(scaled);
+  const fraction = scaled - floor;
+  if (Math.abs(fraction - 0.5) <= NEAR_TIE) return -1;
+  return fraction < 0.5 ? floor : floor + 1;
+};
+
+/**
+ * `value` rounded to `digits` significant digits (1–15), trailing zeros dropped: the text of
+ * `String(Number(value.toPrecision(digits)))`. Fast for magnitudes from 1e-6 to 1e15.
+ */
+export const writeSignificant = (text: AsciiText, value: number, digits: number): void => {
+  const magnitude = Math.abs(value);
+  if (magnitude >= SMALLEST_PLAIN && magnitude < LARGEST_MANTISSA && digits >= 1 && digits <= MAX_EXACT_DIGITS) {
+    // log10 may miss by one next to a power of ten; the mantissa's digit count settles it.
+    let exponent = Math.floor(Math.log10(magnitude));
+    let mantissa = roundedMantissa(magnitude, exponent, digits);
+    if (mantissa >= POWERS[digits]) mantissa = roundedMantissa(magnitude, ++exponent, digits);
+    else if (mantissa >= 0 && mantissa < POWERS[digits - 1]) mantissa = roundedMantissa(magnitude, --exponent, digits);
+    const decimals = digits - 1 - exponent;
+    // A mantissa of exactly 10^(digits-1) may come from an exponent one too high (log10 rounded up to a whole
+    // number) as well as from a value rounded up to a power of ten: rare either way, left to toPrecision.
+    if (mantissa > POWERS[digits - 1] && mantissa < POWERS[digits]) {
+      if (decimals >= 0) text.decimal(value < 0, mantissa, decimals);
+      else text.decimal(value < 0, mantissa * POWERS[-decimals], 0);
+      return;
+    }
+  }
+  text.ascii(String(Number(value.toPrecision(digits))));
+};
+
+/** `value` with a fixed number of decimals: the text of `value.toFixed(decimals)` (the QC bit masks use 0). */
+export const writeFixed = (text: AsciiText, value: number, decimals: number): void => {
+  if (decimals === 0 && Number.isSafeInteger(value) && value >= 0) text.decimal(false, value, 0);
+  else text.ascii(value.toFixed(decimals));
+};
+
+/**
+ * How the samples of one column are written:
+ * - `shortest`: the shortest text that reads back as exactly the same double (`String(x)`), the
+ *   right choice for values read from a file, which then come back unchanged;
+ * - `decimals`: a fixed number of decimals (`toFixed`);
+ * - `significant`: that many significant digits, trailing zeros dropped (for computed values).
+ * Very large or very small magnitudes may come out with an exponent (`1e-7`), which LAS and CSV readers accept.
+ */
+export type NumberFormat =
+  | { readonly kind: "shortest" }
+  | { readonly kind: "decimals"; readonly decimals: number }
+  | { readonly kind: "significant"; readonly digits: number };
+
+export const SHORTEST: NumberFormat = { kind: "shortest" };
+
+/** Writes a finite `value` in `format`. */
+export const writeNumber = (text: AsciiText, value: number, format: NumberFormat): void => {
+  switch (format.kind) {
+    case "shortest":
+      return writeShortest(text, value);
+    case "decimals":
+      return writeFixed(text, value, format.decimals);
+    case "significant":
+      return writeSignificant(text, value, format.digits);
+  }
+};

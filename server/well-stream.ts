@@ -1,0 +1,120 @@
+import { AsciiText, computeElasticLog, isInputIssues, isWellFileError, type FlagSummary, summariseFlags } from "../core/index.js";
+import { deriveProperties } from "./derived-request.js";
+import { conversionOptions, correlationIds } from "./logs-task.js";
+import { ProblemError, unreadableFile, unusableData } from "./problems.js";
+import type { LogsQuery } from "./schemas/logs.js";
+import { planConversion, requestForRows, type ConversionPlan } from "./well-conversion.js";
+import { createWellOutput, type TextFormat, type WellOutput } from "./well-output.js";
+import { WellFileReader, type WellFile, type WellHeader } from "./well-upload.js";
+
+export interface WellStreamTask {
+  query: LogsQuery;
+  format: TextFormat;
+  maxSamples: number;
+  /** Bytes of file accepted in one request. */
+  byteLimit: number;
+}
+
+/** Rows converted and written at a time: enough to amortise the work per batch, few enough to keep the event loop answering. */
+export const BATCH_ROWS = 4096;
+
+const headerOfFile = (file: WellFile): WellHeader =>
+  file.format === "las"
+    ? { format: "las", header: { sections: file.las.sections, curves: file.table.curves, nullValue: file.table.nullValue }, curves: file.table.curves, nullValue: file.table.nullValue }
+    : { format: "csv", curves: file.table.curves, nullValue: undefined };
+
+/** Joins batches of rows (one array per curve each) into one array per curve. */
+const joinRows = (batches: Float64Array[][], rows: number): Float64Array[] => {
+  if (batches.length === 1) return batches[0];
+  return batches[0].map((_, c) => {
+    const column = new Float64Array(rows);
+    let at = 0;
+    for (const batch of batches) {
+      column.set(batch[c], at);
+      at += batch[c].length;
+    }
+    return column;
+  });
+};
+
+const mergeSummary = (total: FlagSummary, part: FlagSummary): void => {
+  total.count += part.count;
+  total.valid += part.valid;
+  for (const [code, count] of Object.entries(part.flags) as [keyof FlagSummary["flags"], number][]) total.flags[code] = (total.flags[code] ?? 0) + count;
+};
+
+/**
+ * Converts a well file to CSV, LAS or NDJSON while it is still arriving: bytes are read, complete rows taken
+ * from the reader, computed and written batch by batch, so a file of any length converts in bounded memory.
+ * The one exception is LAS out of a CSV file, whose STRT and STOP must be known before the first line: its rows
+ * are held until the end. Every problem with the request is thrown as a ProblemError; when it is thrown after the
+ * first text has been handed out, the caller can only cut the answer short. `done` receives the flag summary.
+ */
+export async function* convertWellStream(source: AsyncIterable<Uint8Array>, task: WellStreamTask, done: (summary: FlagSummary) => void): AsyncGenerator<Buffer> {
+  const { query, format } = task;
+  const options = conversionOptions(query);
+  const ids = correlationIds(query);
+  const reader = new WellFileReader();
+  const text = new AsciiText(1 << 20);
+  const summary: FlagSummary = { count: 0, valid: 0, flags: {} };
+  let setup: { plan: ConversionPlan; output: WellOutput; holdAll: boolean; curveCount: number } | undefined;
+  let held: Float64Array[][] = [];
+  let heldRows = 0;
+  let written = 0;
+  let bytes = 0;
+
+  const begin = (header: WellHeader) => {
+    const plan = planConversion(header, options);
+    setup = { plan, output: createWellOutput(format, header, plan, query.digits), holdAll: format === "las" && header.format === "csv", curveCount: header.curves.length };
+  };
+  const hold = (rows: Float64Array[]) => {
+    const count = rows[0]?.length ?? 0;
+    if (count === 0) return;
+    held.push(rows);
+    heldRows += count;
+    if (written + heldRows > task.maxSamples) {
+      throw new ProblemError("too-many-samples", `The file has more than ${task.maxSamples} samples, the most accepted in one request. Split the well.`);
+    }
+  };
+  const convert = (): Buffer => {
+    const { plan, output, curveCount } = setup as NonNullable<typeof setup>;
+    const columns = held.length === 0 ? Array.from({ length: curveCount }, () => new Float64Array(0)) : joinRows(held, heldRows);
+    held = [];
+    heldRows = 0;
+    const log = computeElasticLog(requestForRows(plan, columns));
+    const depthIndex = plan.curves.depth?.index;
+    const depth = depthIndex === undefined ? undefined : columns[depthIndex];
+    const derived = deriveProperties(log, { correlations: ids }, "query");
+    mergeSummary(summary, summariseFlags(log.flags, log.invalidMask));
+    output.batch({ first: written, input: columns, log, derived, depth }, text);
+    written += log.length;
+    const bytes = text.take();
+    return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  };
+
+  try {
+    for await (const chunk of source) {
+      bytes += chunk.length;
+      if (bytes > task.byteLimit) {
+        throw new ProblemError("body-too-large", `The file is larger than this endpoint's limit of ${task.byteLimit} bytes. Split the well, or ask the operator to raise FILE_BODY_LIMIT_BYTES.`);
+      }
+      reader.push(chunk);
+      if (setup === undefined) {
+        const header = reader.header();
+        if (header === undefined) continue;
+        begin(header);
+      }
+      hold(reader.takeRows());
+      if (!setup?.holdAll && heldRows >= BATCH_ROWS) yield convert();
+    }
+    const file = reader.end();
+    if (setup === undefined) begin(headerOfFile(file));
+    hold(file.table.columns);
+    if (heldRows > 0 || written === 0) yield convert();
+  } catch (error) {
+    if (isWellFileError(error)) throw unreadableFile(error);
+    if (isInputIssues(error)) throw unusableData(error.message, error.issues, "body");
+    throw error;
+  }
+  done(summary);
+}
