@@ -63,29 +63,21 @@ export class AnswerPool {
   }
 
   /**
-   * Columns as JSON text, written in parallel by up to `threads` workers. The columns' memory is handed over, not
-   * copied (a copy of a whole well's columns would hold the event loop for tens of milliseconds): they are unusable
-   * here afterwards.
+   * Columns as JSON text, one task per column spread over the workers, each promise settling as its column is
+   * written, so that the answer can start while later columns are still being written. The columns' memory is
+   * handed over, not copied (a copy of a whole well's columns would hold the event loop for tens of
+   * milliseconds): they are unusable here afterwards.
    */
-  async serialize(columns: Float64Array[]): Promise<Buffer[]> {
+  serialize(columns: Float64Array[]): Promise<Buffer>[] {
     // A buffer can be handed over once: a column that shares one (a view, or the same column twice) goes as a copy.
     const handed = new Set<ArrayBufferLike>();
-    const owned = columns.map((column) => {
+    return columns.map(async (column) => {
       const whole = column.byteOffset === 0 && column.byteLength === column.buffer.byteLength;
-      if (!whole || handed.has(column.buffer)) return column.slice();
-      handed.add(column.buffer);
-      return column;
+      const owned = !whole || handed.has(column.buffer) ? column.slice() : column;
+      handed.add(owned.buffer);
+      const { texts } = (await this.workers().run({ columns: [owned] }, { name: "serialize", transferList: [owned.buffer as ArrayBuffer] })) as { texts: Uint8Array[] };
+      return Buffer.from(texts[0].buffer, texts[0].byteOffset, texts[0].byteLength);
     });
-    const groups = Array.from({ length: Math.min(this.threads, owned.length) }, (_, g) => owned.filter((_, c) => c % this.threads === g));
-    const results = await Promise.all(
-      groups.map(
-        (group) =>
-          this.workers().run({ columns: group }, { name: "serialize", transferList: group.map((column) => column.buffer as ArrayBuffer) }) as Promise<{ texts: Uint8Array[] }>,
-      ),
-    );
-    const texts: Buffer[] = new Array(columns.length);
-    results.forEach(({ texts: groupTexts }, g) => groupTexts.forEach((text, k) => (texts[g + k * this.threads] = Buffer.from(text.buffer, text.byteOffset, text.byteLength))));
-    return texts;
   }
 
   async close(): Promise<void> {
@@ -94,14 +86,37 @@ export class AnswerPool {
   }
 }
 
-/** Sends an answer cut at its columns: small ones joined on the event loop, large ones written by the workers and streamed piece by piece. */
+/** Bytes per write to a socket: a whole column's text in one write would hold the event loop for tens of milliseconds. */
+const WRITE_BYTES = 1 << 20;
+
+/** Views of at most WRITE_BYTES on `bytes`, without copying. */
+export function* socketSized(bytes: Uint8Array): Generator<Buffer> {
+  for (let at = 0; at < bytes.byteLength; at += WRITE_BYTES) {
+    yield Buffer.from(bytes.buffer, bytes.byteOffset + at, Math.min(WRITE_BYTES, bytes.byteLength - at));
+  }
+}
+
+/**
+ * Sends an answer cut at its columns: small ones joined on the event loop; large ones written by the workers and
+ * streamed piece by piece, each column as soon as it and those before it are written.
+ */
 export const sendAnswer = async (reply: FastifyReply, answer: AnswerParts, pool: AnswerPool) => {
   reply.type("application/json; charset=utf-8");
   const numbers = answer.columns.reduce((sum, column) => sum + column.length, 0);
   if (numbers < PARALLEL_NUMBERS) {
     return reply.send(answer.parts.map((part, i) => (i < answer.columns.length ? part + columnJson(answer.columns[i]) : part)).join(""));
   }
-  const texts = await pool.serialize(answer.columns);
-  const pieces = answer.parts.flatMap((part, i) => (i < texts.length ? [Buffer.from(part), texts[i]] : [Buffer.from(part)]));
-  return reply.send(Readable.from(pieces));
+  const texts = pool.serialize(answer.columns);
+  // Awaited in order below; a failure is seen there (the answer is cut short), never as an unhandled rejection.
+  for (const text of texts) text.catch(() => undefined);
+  // The first column is awaited before the answer starts: a worker that cannot start is still a problem answer.
+  const first = await texts[0];
+  async function* pieces(): AsyncGenerator<Buffer> {
+    for (let i = 0; i < answer.parts.length; i++) {
+      yield Buffer.from(answer.parts[i]);
+      if (i < texts.length) yield* socketSized(i === 0 ? first : await texts[i]);
+    }
+  }
+  // Bytes, not objects: the stream then buffers at most one MiB ahead of the socket.
+  return reply.send(Readable.from(pieces(), { objectMode: false, highWaterMark: WRITE_BYTES }));
 };

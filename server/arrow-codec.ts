@@ -4,11 +4,12 @@ import {
   makeData,
   Precision,
   RecordBatch,
+  RecordBatchStreamWriter,
+  AsyncByteQueue,
   Schema,
   Struct,
   Table,
   tableFromIPC,
-  tableToIPC,
   Type,
   Uint32,
   util,
@@ -178,14 +179,14 @@ const unitMetadata = (unit: string) => new Map(unit === "" ? [] : [["elastilog.u
  * The answer of `POST /v1/elastic` as an Arrow IPC stream: the echoed depth, top and base, every property of
  * `OUTPUT_PROPERTIES` in order as float64 (NaN as null, unit in the field metadata `elastilog.unit`), and `flags`,
  * the uint32 QC bit mask of each sample. The schema metadata holds the bits, severities, units, limits, summary and
- * service version as JSON text. Same arguments as `columnsAnswer`.
+ * service version as JSON text, in pieces to send one after the other. Same arguments as `columnsAnswer`.
  */
 export const encodeArrowAnswer = (
   log: ElasticLog,
   request: ElasticLogRequest,
   units: UnitsChosen & { depth: DepthUnit },
   echo: { depth?: Float64Array; top?: Float64Array; base?: Float64Array },
-): Uint8Array => {
+): Uint8Array[] => {
   const columns: { field: Field; data: Data }[] = [];
   for (const name of ["depth", "top", "base"] as const) {
     const values = echo[name];
@@ -215,5 +216,48 @@ export const encodeArrowAnswer = (
     new Schema(fields, metadata),
     makeData({ type: new Struct(fields), length: log.length, nullCount: 0, children: columns.map((column) => column.data) }),
   );
-  return tableToIPC(new Table(batch), "stream");
+  const sink = new PieceCollector();
+  new RecordBatchStreamWriter().reset(sink).writeAll(new Table(batch)).finish();
+  return sink.pieces();
 };
+
+/** Pieces below this size are joined into one; larger ones (the columns) are kept as views of their memory. */
+const JOINED_PIECE_BYTES = 64 * 1024;
+
+/**
+ * Takes the IPC writer's output as it comes (a writer's sink must be an AsyncByteQueue), without joining it:
+ * the columns' buffers are sent as they are instead of being copied into one stream-sized buffer.
+ */
+class PieceCollector extends AsyncByteQueue {
+  private readonly written: Uint8Array[] = [];
+
+  override write(value: Uint8Array): void {
+    this.written.push(value);
+  }
+
+  /** The stream in order: small pieces joined, large ones as written. */
+  pieces(): Uint8Array[] {
+    const result: Uint8Array[] = [];
+    let small: Uint8Array[] = [];
+    const flush = () => {
+      if (small.length === 0) return;
+      const joined = new Uint8Array(small.reduce((sum, piece) => sum + piece.byteLength, 0));
+      let at = 0;
+      for (const piece of small) {
+        joined.set(piece, at);
+        at += piece.byteLength;
+      }
+      result.push(joined);
+      small = [];
+    };
+    for (const piece of this.written) {
+      if (piece.byteLength < JOINED_PIECE_BYTES) small.push(piece);
+      else {
+        flush();
+        result.push(piece);
+      }
+    }
+    flush();
+    return result;
+  }
+}

@@ -24,7 +24,7 @@ export interface AnswerParts {
 }
 
 /** A prepared answer of `POST /v1/elastic`: JSON cut at its columns, or a whole Arrow IPC stream. */
-export type PreparedAnswer = ({ kind: "json" } & AnswerParts) | { kind: "arrow"; bytes: Uint8Array; summary: FlagSummary };
+export type PreparedAnswer = ({ kind: "json" } & AnswerParts) | { kind: "arrow"; pieces: Uint8Array[]; summary: FlagSummary };
 
 /** The body as sent: JSON text, or an Arrow IPC stream of columns with the other options in the query string. */
 export type ColumnsBody = { kind: "json"; bytes: Uint8Array } | { kind: "arrow"; bytes: Uint8Array; query: ElasticArrowQuery };
@@ -121,7 +121,7 @@ export const prepareColumnsAnswer = (input: ColumnsBody, maxSamples: number, for
       if (derived || body.zones) {
         throw new ProblemError("not-acceptable", "Correlations and zones are answered in JSON only: ask for application/json, or leave them out for an Arrow answer.");
       }
-      return { kind: "arrow", bytes: encodeArrowAnswer(log, request.core, body.units, request), summary: answer.summary };
+      return { kind: "arrow", pieces: encodeArrowAnswer(log, request.core, body.units, request), summary: answer.summary };
     }
     const full = {
       ...answer,

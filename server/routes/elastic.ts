@@ -1,3 +1,4 @@
+import { Readable } from "node:stream";
 import type { FastifyInstance } from "fastify";
 import { z } from "zod";
 import { validatorCompiler, type ZodTypeProvider } from "fastify-type-provider-zod";
@@ -7,7 +8,7 @@ import { deriveProperties } from "../derived-request.js";
 import { pointAnswer } from "../elastic-answer.js";
 import { pointRequest } from "../elastic-request.js";
 import { installRawJsonBodyParser } from "../plugins/json-body.js";
-import { sendAnswer } from "../answer-pool.js";
+import { sendAnswer, socketSized } from "../answer-pool.js";
 import { ARROW_STREAM_MEDIA_TYPE } from "../arrow-codec.js";
 import { prepareColumnsAnswer, type ColumnsBody } from "../elastic-columns.js";
 import { negotiateMediaType } from "../media-negotiation.js";
@@ -122,7 +123,11 @@ export default async function elasticRoutes(instance: FastifyInstance, options: 
           ? prepareColumnsAnswer(body, options.maxSamples, answerFormat)
           : await app.answerPool.prepare(body, options.maxSamples, answerFormat);
       app.elasticMetrics.recordConversion(answer.summary.count, answer.summary.flags);
-      if (answer.kind === "arrow") return reply.type(ARROW_STREAM_MEDIA_TYPE).send(Buffer.from(answer.bytes.buffer, answer.bytes.byteOffset, answer.bytes.byteLength) as unknown as string);
+      if (answer.kind === "arrow") {
+        const pieces = answer.pieces.flatMap((piece) => [...socketSized(piece)]);
+        // The type provider types reply bodies from the JSON schema; bytes are sent as they are.
+        return reply.type(ARROW_STREAM_MEDIA_TYPE).send((pieces.length === 1 ? pieces[0] : Readable.from(pieces)) as unknown as string);
+      }
       return sendAnswer(reply, answer, app.answerPool);
     },
   );

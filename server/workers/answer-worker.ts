@@ -17,7 +17,7 @@ const transferring = <T extends object>(value: T, buffers: ArrayBufferLike[]) =>
 export function prepare({ body, maxSamples, format }: { body: ColumnsBody; maxSamples: number; format: "json" | "arrow" }) {
   try {
     const answer = prepareColumnsAnswer(body, maxSamples, format);
-    const buffers = answer.kind === "json" ? answer.columns.map((column) => column.buffer) : [answer.bytes.buffer];
+    const buffers = [...new Set(answer.kind === "json" ? answer.columns.map((column) => column.buffer) : answer.pieces.map((piece) => piece.buffer))];
     return transferring({ ok: answer } satisfies Outcome<PreparedAnswer>, buffers);
   } catch (error) {
     if (isProblemError(error)) return { problem: { slug: error.slug, detail: error.detail, errors: error.errors } } satisfies Outcome<PreparedAnswer>;
@@ -27,9 +27,12 @@ export function prepare({ body, maxSamples, format }: { body: ColumnsBody; maxSa
 
 /** Task `serialize`: columns as JSON text, ASCII bytes (numbers, commas, brackets and null only). */
 export function serialize({ columns }: { columns: Float64Array[] }) {
-  // TextEncoder gives each text its own ArrayBuffer (a small Buffer.from would share Node's pool, which must not move).
-  const encoder = new TextEncoder();
-  const texts = columns.map((column) => encoder.encode(columnJson(column)));
+  // Latin-1 is a plain copy of the text's bytes (all ASCII); a short one lies in Node's shared pool, which must not
+  // be handed over, so it is copied out.
+  const texts = columns.map((column) => {
+    const text = Buffer.from(columnJson(column), "latin1");
+    return text.byteLength === text.buffer.byteLength ? text : new Uint8Array(text);
+  });
   return transferring({ texts }, texts.map((text) => text.buffer));
 }
 

@@ -46,8 +46,9 @@ const REQUEST: ElasticLogRequest = {
   impedanceUnit: "m/s*g/cm3",
 };
 
+/** The answer's pieces joined, as a client receives them. */
 const encode = (log: ElasticLog, echo: { depth?: Float64Array; top?: Float64Array; base?: Float64Array } = {}) =>
-  encodeArrowAnswer(log, REQUEST, UNITS, echo);
+  new Uint8Array(Buffer.concat(encodeArrowAnswer(log, REQUEST, UNITS, echo)));
 
 /** Samples of the fictional well Marram Bank 7: sand, shale, a gap, a mispicked shear, swapped curves, a cycle skip in a barite-weighted interval. */
 const SAMPLE_LOG = () =>
