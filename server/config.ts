@@ -65,6 +65,8 @@ export const DEFAULT_CONFIG: Readonly<ServiceConfig> = Object.freeze({
   retryAfterSeconds: 5,
   rateLimitMax: 0,
   rateLimitWindowMs: 60_000,
+  // One per core; the workers run at a lower scheduling priority (server/workers/answer-worker.ts), so the event
+  // loop still gets a core first when probes and small requests arrive while a whole well converts.
   workerThreads: Math.max(1, availableParallelism()),
 });
 

@@ -7,7 +7,7 @@ import { CAUTION, derivedPointAnswer } from "../derived-answer.js";
 import { deriveProperties } from "../derived-request.js";
 import { pointAnswer } from "../elastic-answer.js";
 import { pointRequest } from "../elastic-request.js";
-import { installRawJsonBodyParser } from "../plugins/json-body.js";
+import { installRawBodyParser } from "../plugins/json-body.js";
 import { sendAnswer, socketSized } from "../answer-pool.js";
 import { ARROW_STREAM_MEDIA_TYPE } from "../arrow-codec.js";
 import { prepareColumnsAnswer, type ColumnsBody } from "../elastic-columns.js";
@@ -41,8 +41,7 @@ export default async function elasticRoutes(instance: FastifyInstance, options: 
   const app = instance.withTypeProvider<ZodTypeProvider>();
   // Content-type parsers are encapsulated per plugin: here only JSON is accepted, anything else is a 415.
   app.removeAllContentTypeParsers();
-  installRawJsonBodyParser(app);
-  app.addContentTypeParser(ARROW_STREAM_MEDIA_TYPE, { parseAs: "buffer" }, (_request, body, done) => done(null, body));
+  installRawBodyParser(app, [JSON_MEDIA_TYPE, ARROW_STREAM_MEDIA_TYPE]);
 
   app.get(
     "/v1/elastic",

@@ -1,7 +1,27 @@
+import { readlinkSync } from "node:fs";
+import { setPriority } from "node:os";
 import { Piscina } from "piscina";
 import { isProblemError, type ProblemSlug, type ProblemFieldError } from "../problems.js";
 import { columnJson, prepareColumnsAnswer, type ColumnsBody, type PreparedAnswer } from "../elastic-columns.js";
 import { convertLogs, type LogsResult, type LogsTask } from "../logs-task.js";
+
+/** Nice value of the worker threads: above the event loop's 0, so that probes and small requests get a core first. */
+export const WORKER_NICENESS = 10;
+
+/**
+ * Lowers this thread's scheduling priority. On Linux a thread is a task with its own id (from /proc/thread-self)
+ * whose priority setpriority(2) sets alone; elsewhere, or where the system refuses, the thread keeps its priority.
+ */
+const yieldToTheEventLoop = (): void => {
+  try {
+    const threadId = Number(readlinkSync("/proc/thread-self").split("/").at(-1));
+    if (Number.isSafeInteger(threadId) && threadId > 0) setPriority(threadId, WORKER_NICENESS);
+  } catch {
+    // Not Linux, or not allowed: the work still runs off the event loop, only without the lower priority.
+  }
+};
+// Only in a pool's thread: a module that merely imports this file (a test) keeps its priority.
+if (Piscina.isWorkerThread) yieldToTheEventLoop();
 
 /** What crosses back from a worker: errors as data (class instances lose their prototype between threads). */
 export type Outcome<T> = { ok: T } | { problem: { slug: ProblemSlug; detail: string; errors?: ProblemFieldError[] } };
