@@ -124,7 +124,11 @@ const streamAnswer = async (request: FastifyRequest, reply: FastifyReply, pieces
       yield* pieces;
     } catch (error) {
       const problem = error instanceof ProblemError ? { slug: error.slug, detail: error.detail } : undefined;
-      request.log.warn({ problem }, "answer cut short: the file failed after streaming had begun");
+      // The response is destroyed, so no "request completed" line follows: this line says what that one would.
+      request.log.warn(
+        { method: request.method, url: request.url, status: reply.statusCode, ms: Math.round(reply.elapsedTime * 10) / 10, problem },
+        "answer cut short: the file failed after streaming had begun",
+      );
       throw error;
     }
   }

@@ -97,6 +97,20 @@ describe("streamed answers of a file longer than one batch", () => {
     expect(lines.map((line) => line.E)).toEqual(json.json().E);
   });
 
+  it("the CSV, LAS and NDJSON answers of the file fed in chunks of 997 bytes (splitting numbers, lines and batches) equal those of the whole file", async () => {
+    const app = await build();
+    const bytes = Buffer.from(LAS);
+    for (const format of ["csv", "las", "ndjson"]) {
+      const url = `/v1/logs?format=${format}`;
+      const whole = await app.inject({ method: "POST", url, payload: bytes, headers: { "content-type": "text/plain" } });
+      const pieces = Array.from({ length: Math.ceil(bytes.length / 997) }, (_, i) => bytes.subarray(i * 997, i * 997 + 997));
+      const chunked = await app.inject({ method: "POST", url, payload: Readable.from(pieces), headers: { "content-type": "text/plain" } });
+      expect(chunked.statusCode).toBe(200);
+      expect(chunked.body.length).toBeGreaterThan(bytes.length);
+      expect(chunked.body === whole.body, format).toBe(true);
+    }
+  });
+
   it("a problem found within the held part of the answer is still a 422 problem naming the line", async () => {
     const lines = LAS.split("\r\n");
     const bad = lines.length - 10;
