@@ -3,7 +3,7 @@ import { once } from "node:events";
 import { request, type IncomingMessage } from "node:http";
 import { setTimeout as sleep } from "node:timers/promises";
 import { fileURLToPath } from "node:url";
-import { withinBound } from "./answer-checks.js";
+import { withinBound } from "./within-bound.js";
 
 const root = fileURLToPath(new URL("../..", import.meta.url));
 
