@@ -1,3 +1,4 @@
+import { setImmediate } from "node:timers/promises";
 import { AsciiText, computeElasticLog, isInputIssues, isWellFileError, type FlagSummary, summariseFlags } from "../core/index.js";
 import { deriveProperties } from "./derived-request.js";
 import { conversionOptions, correlationIds } from "./logs-task.js";
@@ -16,7 +17,7 @@ export interface WellStreamTask {
 }
 
 /** Rows converted and written at a time: enough to amortise the work per batch, few enough to keep the event loop answering. */
-export const BATCH_ROWS = 4096;
+export const BATCH_ROWS = 1024;
 
 const headerOfFile = (file: WellFile): WellHeader =>
   file.format === "las"
@@ -61,6 +62,7 @@ export async function* convertWellStream(source: AsyncIterable<Uint8Array>, task
   let held: Float64Array[][] = [];
   let heldRows = 0;
   let written = 0;
+  let batches = 0;
   let bytes = 0;
 
   const begin = (header: WellHeader) => {
@@ -76,11 +78,20 @@ export async function* convertWellStream(source: AsyncIterable<Uint8Array>, task
       throw new ProblemError("too-many-samples", `The file has more than ${task.maxSamples} samples, the most accepted in one request. Split the well.`);
     }
   };
-  const convert = (): Buffer => {
+  /** The first `count` held rows (all when fewer), taken out of the held ones; views, not copies, where one piece holds them. */
+  const takeHeld = (count: number): Float64Array[] => {
+    const joined = joinRows(held, heldRows);
+    const taken = Math.min(count, heldRows);
+    const rows = joined.map((column) => column.subarray(0, taken));
+    const rest = joined.map((column) => column.subarray(taken));
+    heldRows -= taken;
+    held = heldRows > 0 ? [rest] : [];
+    return rows;
+  };
+  /** Converts and writes the next batch: `count` held rows, or all of them; an empty file still gets its header. */
+  const convert = (count = heldRows): Buffer => {
     const { plan, output, curveCount } = setup as NonNullable<typeof setup>;
-    const columns = held.length === 0 ? Array.from({ length: curveCount }, () => new Float64Array(0)) : joinRows(held, heldRows);
-    held = [];
-    heldRows = 0;
+    const columns = held.length === 0 ? Array.from({ length: curveCount }, () => new Float64Array(0)) : takeHeld(count);
     const log = computeElasticLog(requestForRows(plan, columns));
     const depthIndex = plan.curves.depth?.index;
     const depth = depthIndex === undefined ? undefined : columns[depthIndex];
@@ -88,6 +99,7 @@ export async function* convertWellStream(source: AsyncIterable<Uint8Array>, task
     mergeSummary(summary, summariseFlags(log.flags, log.invalidMask));
     output.batch({ first: written, input: columns, log, derived, depth }, text);
     written += log.length;
+    batches++;
     const bytes = text.take();
     return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   };
@@ -105,12 +117,22 @@ export async function* convertWellStream(source: AsyncIterable<Uint8Array>, task
         begin(header);
       }
       hold(reader.takeRows());
-      if (!setup?.holdAll && heldRows >= BATCH_ROWS) yield convert();
+      while (!setup?.holdAll && heldRows >= BATCH_ROWS) {
+        yield convert(BATCH_ROWS);
+        // A body already buffered is read, and batches handed on, in promise callbacks alone, which never let the
+        // event loop take other connections' requests: give it a turn after each batch.
+        await setImmediate();
+      }
     }
     const file = reader.end();
     if (setup === undefined) begin(headerOfFile(file));
     hold(file.table.columns);
-    if (heldRows > 0 || written === 0) yield convert();
+    if (setup?.holdAll) yield convert();
+    while (heldRows > 0) {
+      yield convert(BATCH_ROWS);
+      await setImmediate();
+    }
+    if (batches === 0) yield convert();
   } catch (error) {
     if (isWellFileError(error)) throw unreadableFile(error);
     if (isInputIssues(error)) throw unusableData(error.message, error.issues, "body");

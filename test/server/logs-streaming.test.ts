@@ -111,6 +111,27 @@ describe("streamed answers of a file longer than one batch", () => {
     }
   });
 
+  it("the event loop gets a turn after every batch while a file already in memory converts, so other requests are not starved", async () => {
+    const app = await build();
+    const bytes = Buffer.from(LAS);
+    // Counts the event loop's iterations: a callback that schedules itself again runs once per iteration.
+    let turns = 0;
+    let ticker: NodeJS.Immediate;
+    const tick = () => {
+      turns++;
+      ticker = setImmediate(tick);
+    };
+    ticker = setImmediate(tick);
+    try {
+      const answer = await app.inject({ method: "POST", url: "/v1/logs?format=csv", payload: Readable.from([bytes]), headers: { "content-type": "text/plain" } });
+      expect(answer.statusCode).toBe(200);
+    } finally {
+      clearImmediate(ticker);
+    }
+    // A turn at least after every batch (the file is 3 batches and a part).
+    expect(turns).toBeGreaterThanOrEqual(Math.ceil(ROWS / BATCH_ROWS));
+  });
+
   it("a problem found within the held part of the answer is still a 422 problem naming the line", async () => {
     const lines = LAS.split("\r\n");
     const bad = lines.length - 10;
