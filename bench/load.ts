@@ -188,17 +188,24 @@ const probeOpenLoop = async (base: string, stopped: Promise<unknown>) => {
   return { latencies, failures };
 };
 
-/** One POST of the whole well while /livez is probed; the answer's size in bytes. */
-const probeDuringWholeWell = async (base: string, body: string) => {
+/** POSTs a whole well to `path` and reads the answer to its end: status, answer size and seconds taken. */
+const postWhole = async (base: string, path: string, contentType: string, body: string | Buffer) => {
   const agent = new Agent({ headersTimeout: WHOLE_WELL_LIMIT_MS, bodyTimeout: WHOLE_WELL_LIMIT_MS });
   const started = performance.now();
-  const conversion = (async () => {
-    const answer = await request(`${base}/v1/elastic`, { method: "POST", headers: { "content-type": "application/json" }, body, dispatcher: agent });
+  try {
+    const answer = await request(`${base}${path}`, { method: "POST", headers: { "content-type": contentType }, body, dispatcher: agent });
     let answerBytes = 0;
     for await (const chunk of answer.body) answerBytes += (chunk as Buffer).length;
     return { status: answer.statusCode, answerBytes, seconds: (performance.now() - started) / 1000 };
-  })();
-  const [converted, probes] = await Promise.all([conversion.finally(() => agent.close()), probeOpenLoop(base, conversion)]);
+  } finally {
+    await agent.close();
+  }
+};
+
+/** One whole-well POST while /livez is probed. */
+const probeDuringWholeWell = async (base: string, path: string, contentType: string, body: string | Buffer) => {
+  const conversion = postWhole(base, path, contentType, body);
+  const [converted, probes] = await Promise.all([conversion, probeOpenLoop(base, conversion)]);
   return { converted, ...probes };
 };
 
@@ -218,13 +225,13 @@ const conversionRows = (what: string, status: number, seconds: number, latencies
 
 const measureProbeDuringWholeWell = async (base: string): Promise<Row[]> => {
   const body = columnsBody(WHOLE_WELL_SAMPLES);
-  const { converted, latencies, failures } = await probeDuringWholeWell(base, body);
+  const { converted, latencies, failures } = await probeDuringWholeWell(base, "/v1/elastic", "application/json", body);
   // The same transfer with no work at all: what this machine allows any Node server while it sends that much.
   const port = await freePort();
   const bare = await start("bare-stream", ["bench/bare-stream.mjs"], { PORT: String(port), ANSWER_BYTES: String(converted.answerBytes) }, /ready/);
   let floor: Awaited<ReturnType<typeof probeDuringWholeWell>>;
   try {
-    floor = await probeDuringWholeWell(`http://127.0.0.1:${port}`, body);
+    floor = await probeDuringWholeWell(`http://127.0.0.1:${port}`, "/v1/elastic", "application/json", body);
   } finally {
     await stop(bare);
   }
@@ -258,26 +265,14 @@ const wellCsv = (samples: number): Buffer => {
 
 /** /livez while a whole-well CSV file is converted to CSV (POST /v1/logs, streamed), after one smaller file has warmed that path up. */
 const measureProbeDuringFile = async (base: string): Promise<Row[]> => {
-  const send = async (file: Buffer) => {
-    const agent = new Agent({ headersTimeout: WHOLE_WELL_LIMIT_MS, bodyTimeout: WHOLE_WELL_LIMIT_MS });
-    try {
-      const answer = await request(`${base}/v1/logs?format=csv`, { method: "POST", headers: { "content-type": "text/csv" }, body: file, dispatcher: agent });
-      let answerBytes = 0;
-      for await (const chunk of answer.body) answerBytes += (chunk as Buffer).length;
-      return { status: answer.statusCode, answerBytes };
-    } finally {
-      await agent.close();
-    }
-  };
-  await send(wellCsv(WHOLE_WELL_SAMPLES / 10));
+  const path = "/v1/logs?format=csv";
+  await postWhole(base, path, "text/csv", wellCsv(WHOLE_WELL_SAMPLES / 10));
   const file = wellCsv(WHOLE_WELL_SAMPLES);
-  const started = performance.now();
-  const conversion = send(file);
-  const [converted, { latencies, failures }] = await Promise.all([conversion, probeOpenLoop(base, conversion)]);
+  const { converted, latencies, failures } = await probeDuringWholeWell(base, path, "text/csv", file);
   return conversionRows(
     `One CSV file of ${WHOLE_WELL_SAMPLES.toLocaleString("en")} samples to CSV, POST /v1/logs, streamed (${(file.length / 2 ** 20).toFixed(0)} MiB in, ${(converted.answerBytes / 2 ** 20).toFixed(0)} MiB out; after a warm-up file of a tenth of that)`,
     converted.status,
-    (performance.now() - started) / 1000,
+    converted.seconds,
     latencies,
     failures,
   );

@@ -89,25 +89,14 @@ export class AsciiText {
     while (digits < 16 && m >= POWERS[digits]) digits++;
     const integerDigits = digits > k ? digits - k : 1;
     const size = (negative ? 1 : 0) + integerDigits + (k > 0 ? 1 + k : 0);
-    if (this.length + size > this.buffer.length) this.ensure(size);
+    this.ensure(size);
     const buffer = this.buffer;
     let at = this.length + size;
     this.length = at;
-    // Digits from the right; below 2^31 in integer arithmetic, which is faster.
-    for (let i = 0; i < k; i++) {
-      if (m < 2147483648) {
-        const next = ((m as number) / 10) | 0;
-        buffer[--at] = ZERO + (m - next * 10);
-        m = next;
-      } else {
-        const next = Math.floor(m / 10);
-        buffer[--at] = ZERO + (m - next * 10);
-        m = next;
-      }
-    }
-    if (k > 0) buffer[--at] = DOT;
-    for (let i = 0; i < integerDigits; i++) {
-      const next = m < 2147483648 ? ((m / 10) | 0) : Math.floor(m / 10);
+    // Digits from the right, the point after the k-th; below 2^31 in integer arithmetic, which is faster.
+    for (let i = 0; i < k + integerDigits; i++) {
+      if (i === k && k > 0) buffer[--at] = DOT;
+      const next = m < 2147483648 ? (m / 10) | 0 : Math.floor(m / 10);
       buffer[--at] = ZERO + (m - next * 10);
       m = next;
     }

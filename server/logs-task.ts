@@ -51,8 +51,13 @@ export const convertLogs = async (task: LogsTask): Promise<LogsResult> => {
     const summary = summariseFlags(log.flags, log.invalidMask);
     return { ...splitAtColumns(logsAnswer(conversion, zones, derived)), summary };
   } catch (error) {
-    if (isWellFileError(error)) throw unreadableFile(error);
-    if (isInputIssues(error)) throw unusableData(error.message, error.issues, "body");
-    throw error;
+    throw asFileProblem(error);
   }
+};
+
+/** What core throws while a file is read and converted, as the problem it is for the client; anything else as it is. */
+export const asFileProblem = (error: unknown): unknown => {
+  if (isWellFileError(error)) return unreadableFile(error);
+  if (isInputIssues(error)) return unusableData(error.message, error.issues, "body");
+  return error;
 };

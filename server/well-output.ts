@@ -9,7 +9,7 @@ import {
   FLAGS,
   flagCodesOf,
   invalidatingMask,
-  isItemSection,
+  lasCurveLayoutOf,
   lasIndexItems,
   type DerivedColumn,
   type ElasticLog,
@@ -139,9 +139,7 @@ type CurveMeta = Omit<LasCurveToWrite, "values">;
  */
 const inputCurves = (header: WellHeader, plan: ConversionPlan): { curves: CurveMeta[]; columns: (rows: RowBatch) => Float64Array[] } => {
   if (header.format === "las") {
-    const items = header.header.sections.flatMap((section) => (isItemSection(section) && section.kind === "curve" ? section.items : []));
-    const curves = header.curves.map((curve, c) => ({ mnemonic: items[c].mnemonic, unit: curve.unit, description: curve.description, value: items[c].value }));
-    return { curves, columns: (rows) => [...rows.input] };
+    return { curves: lasCurveLayoutOf(header.header), columns: (rows) => [...rows.input] };
   }
   const curves = header.curves.map((curve) => ({ mnemonic: curve.mnemonic, unit: curve.unit, description: curve.description }));
   const depthIndex = plan.curves.depth?.index;

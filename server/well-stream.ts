@@ -1,12 +1,12 @@
 import { setImmediate } from "node:timers/promises";
-import { AsciiText, computeElasticLog, isInputIssues, isWellFileError, type FlagSummary, summariseFlags } from "../core/index.js";
+import { AsciiText, computeElasticLog, type FlagSummary, summariseFlags } from "../core/index.js";
 import { deriveProperties } from "./derived-request.js";
-import { conversionOptions, correlationIds } from "./logs-task.js";
-import { ProblemError, unreadableFile, unusableData } from "./problems.js";
+import { asFileProblem, conversionOptions, correlationIds } from "./logs-task.js";
+import { ProblemError } from "./problems.js";
 import type { LogsQuery } from "./schemas/logs.js";
 import { planConversion, requestForRows, type ConversionPlan } from "./well-conversion.js";
 import { createWellOutput, type TextFormat, type WellOutput } from "./well-output.js";
-import { WellFileReader, type WellFile, type WellHeader } from "./well-upload.js";
+import { WellFileReader, type WellHeader } from "./well-upload.js";
 
 export interface WellStreamTask {
   query: LogsQuery;
@@ -18,11 +18,6 @@ export interface WellStreamTask {
 
 /** Rows converted and written at a time: enough to amortise the work per batch, few enough to keep the event loop answering. */
 export const BATCH_ROWS = 1024;
-
-const headerOfFile = (file: WellFile): WellHeader =>
-  file.format === "las"
-    ? { format: "las", header: { sections: file.las.sections, curves: file.table.curves, nullValue: file.table.nullValue }, curves: file.table.curves, nullValue: file.table.nullValue }
-    : { format: "csv", curves: file.table.curves, nullValue: undefined };
 
 /** Joins batches of rows (one array per curve each) into one array per curve. */
 const joinRows = (batches: Float64Array[][], rows: number): Float64Array[] => {
@@ -125,7 +120,8 @@ export async function* convertWellStream(source: AsyncIterable<Uint8Array>, task
       }
     }
     const file = reader.end();
-    if (setup === undefined) begin(headerOfFile(file));
+    // A file read to its end without error has its header (LAS ~A reached, CSV header line read).
+    if (setup === undefined) begin(reader.header() as WellHeader);
     hold(file.table.columns);
     if (setup?.holdAll) yield convert();
     while (heldRows > 0) {
@@ -134,9 +130,7 @@ export async function* convertWellStream(source: AsyncIterable<Uint8Array>, task
     }
     if (batches === 0) yield convert();
   } catch (error) {
-    if (isWellFileError(error)) throw unreadableFile(error);
-    if (isInputIssues(error)) throw unusableData(error.message, error.issues, "body");
-    throw error;
+    throw asFileProblem(error);
   }
   done(summary);
 }

@@ -1,3 +1,4 @@
+import type { CurveInfo } from "../well-table.js";
 import { isItemSection, type LasDocument, type LasSection } from "./las-document.js";
 import { writeLasHeader, type LasItemToWrite } from "./las-header-writer.js";
 import { AsciiText, asciiString, writeNumber } from "../ascii-numbers.js";
@@ -37,17 +38,13 @@ const WIDTH_SAMPLE_ROWS = 256;
 const readable = (value: number): string => String(Number(value.toPrecision(10)));
 
 /** The curves of a document as read, ready to be written back unchanged (original mnemonics, shortest numbers). */
-export const lasCurvesOf = (document: LasDocument): LasCurveToWrite[] => {
-  const items = document.sections.flatMap((section) =>
-    isItemSection(section) && section.kind === "curve" ? section.items : [],
-  );
-  return document.table.curves.map((curve, c) => ({
-    mnemonic: items[c].mnemonic,
-    unit: curve.unit,
-    description: curve.description,
-    value: items[c].value,
-    values: document.table.columns[c],
-  }));
+export const lasCurvesOf = (document: LasDocument): LasCurveToWrite[] =>
+  lasCurveLayoutOf({ sections: document.sections, curves: document.table.curves }).map((curve, c) => ({ ...curve, values: document.table.columns[c] }));
+
+/** The curves of a LAS header, ready to be written back unchanged once their samples come (original mnemonics and ~Curve values). */
+export const lasCurveLayoutOf = (header: { readonly sections: readonly LasSection[]; readonly curves: readonly CurveInfo[] }): Omit<LasCurveToWrite, "values">[] => {
+  const items = header.sections.flatMap((section) => (isItemSection(section) && section.kind === "curve" ? section.items : []));
+  return header.curves.map((curve, c) => ({ mnemonic: items[c].mnemonic, unit: curve.unit, description: curve.description, value: items[c].value }));
 };
 
 /** STRT, STOP and STEP of a new file from its index curve: STEP is the regular spacing of the index, or 0 when it is irregular. */
@@ -66,16 +63,6 @@ export const lasIndexItems = (index: LasCurveToWrite, nullText: string): LasItem
     { mnemonic: "STOP", unit: index.unit, value: values.length > 0 ? format(last) : "0", description: "STOP DEPTH" },
     { mnemonic: "STEP", unit: index.unit, value: readable(step), description: "STEP" },
   ];
-};
-
-const checkInput = (input: LasWriteInput): void => {
-  if (input.curves.length === 0) throw new RangeError("a LAS file needs at least one curve (the index)");
-  const length = input.curves[0].values.length;
-  for (const curve of input.curves) {
-    if (curve.values.length !== length) {
-      throw new RangeError(`curve ${curve.mnemonic} has ${curve.values.length} values but ${input.curves[0].mnemonic} has ${length}`);
-    }
-  }
 };
 
 /** A LAS file described before its samples are known: the curves without values, and the index items of a new file. */
@@ -168,13 +155,15 @@ export const createLasTextWriter = (layout: LasLayout): LasTextWriter => {
  * `RangeError` names what cannot be written.
  */
 export const writeLas = (input: LasWriteInput): Generator<string> => {
-  checkInput(input);
-  const writer = createLasTextWriter({ ...input, indexItems: lasIndexItems(input.curves[0], String(input.nullValue)) });
-  return chunks(writer, input.curves.map((curve) => curve.values));
+  const index = input.curves[0];
+  const writer = createLasTextWriter({ ...input, indexItems: index === undefined ? [] : lasIndexItems(index, String(input.nullValue)) });
+  const columns = input.curves.map((curve) => curve.values);
+  // begin() checks the columns' lengths, here, before a generator would defer it to the first chunk.
+  return chunks(writer, columns, writer.begin(columns));
 };
 
-function* chunks(writer: LasTextWriter, columns: Float64Array[]): Generator<string> {
-  let head = writer.begin(columns);
+function* chunks(writer: LasTextWriter, columns: Float64Array[], header: string): Generator<string> {
+  let head = header;
   const text = new AsciiText();
   const rows = columns[0].length;
   for (let i = 0; i < rows; i++) {

@@ -71,6 +71,13 @@ const multipartProblem = (error: unknown): unknown => {
   return new ProblemError("malformed-body", `The multipart/form-data body could not be read: ${(error as Error).message}.`);
 };
 
+/** What a multipart upload may hold, as said by both readers of it (with zones for JSON, as a stream otherwise). */
+const UPLOAD_PROBLEMS = {
+  unknownField: (name: string) => new ProblemError("invalid-request", `Unknown form field "${name}": send one file part and optionally a zones part.`),
+  severalFiles: () => new ProblemError("invalid-request", "Send one well file per request; this upload has several file parts."),
+  noFile: () => new ProblemError("invalid-request", "The multipart upload has no file part: use curl -F file=@well.las."),
+};
+
 const ZONES_NEED_JSON = "Zone statistics are part of the JSON answer: ask for format=json, or leave zones out for CSV, LAS and NDJSON.";
 
 /** The well file and zones of a multipart upload: exactly one file part, optionally a `zones` part. */
@@ -90,8 +97,8 @@ async function* multipartFile(request: FastifyRequest): AsyncGenerator<Buffer> {
       if (part.fieldname === "zones") {
         throw new ProblemError("invalid-request", ZONES_NEED_JSON, [{ field: "body.zones", message: "zones need format=json" }]);
       }
-      if (part.type !== "file") throw new ProblemError("invalid-request", `Unknown form field "${part.fieldname}": send one file part and optionally a zones part.`);
-      if (seen) throw new ProblemError("invalid-request", "Send one well file per request; this upload has several file parts.");
+      if (part.type !== "file") throw UPLOAD_PROBLEMS.unknownField(part.fieldname);
+      if (seen) throw UPLOAD_PROBLEMS.severalFiles();
       seen = true;
       for await (const chunk of part.file) yield chunk as Buffer;
       if (part.file.truncated) throw new ProblemError("body-too-large", "The file part is larger than this endpoint's limit of FILE_BODY_LIMIT_BYTES bytes.");
@@ -99,7 +106,7 @@ async function* multipartFile(request: FastifyRequest): AsyncGenerator<Buffer> {
   } catch (error) {
     throw multipartProblem(error);
   }
-  if (!seen) throw new ProblemError("invalid-request", "The multipart upload has no file part: use curl -F file=@well.las.");
+  if (!seen) throw UPLOAD_PROBLEMS.noFile();
 }
 
 /**
@@ -143,16 +150,16 @@ const readMultipartParts = async (request: FastifyRequest, byteLimit: number): P
     if (part.type === "file" && part.fieldname === "zones") {
       zones = zonesFromPart((await part.toBuffer()).toString("utf8"));
     } else if (part.type === "file") {
-      if (file !== undefined) throw new ProblemError("invalid-request", "Send one well file per request; this upload has several file parts.");
+      if (file !== undefined) throw UPLOAD_PROBLEMS.severalFiles();
       file = await readBytes(part.file, byteLimit);
       if (part.file.truncated) throw new ProblemError("body-too-large", `The file part is larger than the limit of ${byteLimit} bytes.`);
     } else if (part.fieldname === "zones") {
       zones = zonesFromPart(part.value);
     } else {
-      throw new ProblemError("invalid-request", `Unknown form field "${part.fieldname}": send one file part and optionally a zones part.`);
+      throw UPLOAD_PROBLEMS.unknownField(part.fieldname);
     }
   }
-  if (file === undefined) throw new ProblemError("invalid-request", "The multipart upload has no file part: use curl -F file=@well.las.");
+  if (file === undefined) throw UPLOAD_PROBLEMS.noFile();
   return { chunks: file, zones };
 };
 

@@ -1,4 +1,6 @@
-import { expect } from "vitest";
+import type { FastifyInstance } from "fastify";
+import { afterAll, beforeAll, expect } from "vitest";
+import { buildApp } from "../../server/app.js";
 import { csvDataRecords, lasSampleCount } from "./well-texts.js";
 
 /** Longest one fuzz case may take before it counts as a hang (not a speed check: a sound case takes milliseconds). */
@@ -59,4 +61,20 @@ export const expectWellRows = (answer: Answer, rows: number, input: string): voi
   else if (type.startsWith("text/csv")) expect(csvDataRecords(answer.body), `CSV answer for input: ${input.slice(0, 300)}`).toBe(rows);
   else if (type.startsWith("application/x-las")) expect(lasSampleCount(answer.body), `LAS answer for input: ${input.slice(0, 300)}`).toBe(rows);
   else expect.fail(`unexpected content type ${type} for a 2xx well answer`);
+};
+
+/**
+ * One app for a fuzzing file, built before its tests and closed after them, with load shedding off: a refusal under
+ * the fuzzer's own load would hide what the service does with each input.
+ */
+export const fuzzedApp = (): Pick<FastifyInstance, "inject"> => {
+  let app: FastifyInstance | undefined;
+  beforeAll(async () => {
+    app = await buildApp({ logger: false, config: { maxEventLoopDelayMs: 0 } });
+    await app.ready();
+  });
+  afterAll(async () => {
+    await app?.close();
+  });
+  return { inject: ((...args: Parameters<FastifyInstance["inject"]>) => (app as FastifyInstance).inject(...args)) as FastifyInstance["inject"] };
 };

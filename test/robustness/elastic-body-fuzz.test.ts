@@ -1,6 +1,5 @@
 import fc from "fast-check";
-import type { FastifyInstance } from "fastify";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import {
   CORRELATIONS,
   DENSITY_UNITS,
@@ -10,8 +9,7 @@ import {
   SLOWNESS_UNITS,
   VELOCITY_UNITS,
 } from "../../core/index.js";
-import { buildApp } from "../../server/app.js";
-import { CASE_BOUND_MS, FUZZ_SEED, expectColumnsOfLength, expectSuccessOrProblem, withinBound } from "./answer-checks.js";
+import { CASE_BOUND_MS, FUZZ_SEED, expectColumnsOfLength, expectSuccessOrProblem, withinBound, fuzzedApp } from "./answer-checks.js";
 
 const COLUMN_KEYS = ["depth", "top", "base", "vp", "vs", "dtc", "dts", "rho"];
 const OPTION_KEYS = ["units", "null_value", "keep_negative_poisson", "limits", "correlations", "correlation_options", "vs_from", "rho_from", "fill", "zones"];
@@ -206,17 +204,7 @@ const declaredColumnLengths = (text: string): number[] => {
   }
 };
 
-let app: FastifyInstance;
-
-beforeAll(async () => {
-  // Load shedding is off: a refusal under the fuzzer's own load would hide what the parser does with each body.
-  app = await buildApp({ logger: false, config: { maxEventLoopDelayMs: 0 } });
-  await app.ready();
-});
-
-afterAll(async () => {
-  await app.close();
-});
+const app = fuzzedApp();
 
 describe("POST /v1/elastic under random and mutated JSON bodies", () => {
   it("always answers 2xx or a 4xx problem document (RFC 9457), never 5xx nor a hang; a 2xx keeps every input row", async () => {

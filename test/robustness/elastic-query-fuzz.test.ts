@@ -1,9 +1,7 @@
 import fc from "fast-check";
-import type { FastifyInstance } from "fastify";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { CORRELATIONS, DENSITY_UNITS, IMPEDANCE_UNITS, MODULUS_UNITS, SLOWNESS_UNITS, VELOCITY_UNITS } from "../../core/index.js";
-import { buildApp } from "../../server/app.js";
-import { CASE_BOUND_MS, FUZZ_SEED, PROPERTY_COLUMNS, expectSuccessOrProblem, withinBound } from "./answer-checks.js";
+import { CASE_BOUND_MS, FUZZ_SEED, PROPERTY_COLUMNS, expectSuccessOrProblem, withinBound, fuzzedApp } from "./answer-checks.js";
 
 const SAMPLE_NAMES = ["vp", "vs", "dtc", "dts", "rho"];
 const UNIT_PARAMETERS: Record<string, string[]> = {
@@ -62,17 +60,7 @@ const queryString = fc
     ),
   );
 
-let app: FastifyInstance;
-
-beforeAll(async () => {
-  // Load shedding is off: a refusal under the fuzzer's own load would hide what validation does with each query.
-  app = await buildApp({ logger: false, config: { maxEventLoopDelayMs: 0 } });
-  await app.ready();
-});
-
-afterAll(async () => {
-  await app.close();
-});
+const app = fuzzedApp();
 
 describe("GET /v1/elastic under random query strings", () => {
   it("always answers 2xx or a 4xx problem document (RFC 9457), never 5xx nor a hang; a 2xx is one sample", async () => {

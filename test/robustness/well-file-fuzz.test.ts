@@ -1,9 +1,7 @@
 import { readFileSync } from "node:fs";
 import fc from "fast-check";
-import type { FastifyInstance } from "fastify";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { buildApp } from "../../server/app.js";
-import { CASE_BOUND_MS, FUZZ_SEED, expectSuccessOrProblem, expectWellRows, withinBound } from "./answer-checks.js";
+import { describe, expect, it } from "vitest";
+import { CASE_BOUND_MS, FUZZ_SEED, expectSuccessOrProblem, expectWellRows, withinBound, fuzzedApp } from "./answer-checks.js";
 import { csvDataRecords, demoCsvCut, demoLasCut, lasSampleCount } from "./well-texts.js";
 
 type Mutation = (file: Buffer) => Buffer;
@@ -121,17 +119,7 @@ const asking = fc.oneof(
 /** The format the server reads the text as (README: a LAS file begins with ~ after optional # comments and blank lines). */
 const readsAsLas = (decoded: string): boolean => decoded.replace(/^\uFEFF/, "").split(/\r\n|\r|\n/).find((line) => line.trim() !== "" && !line.trim().startsWith("#"))?.trim().startsWith("~") ?? false;
 
-let app: FastifyInstance;
-
-beforeAll(async () => {
-  // Load shedding is off: a refusal under the fuzzer's own load would hide what the readers do with each file.
-  app = await buildApp({ logger: false, config: { maxEventLoopDelayMs: 0 } });
-  await app.ready();
-});
-
-afterAll(async () => {
-  await app.close();
-});
+const app = fuzzedApp();
 
 describe("the row counts the property below relies on", () => {
   it("count the demo well's 3,000 samples in its LAS and CSV files (README, \"A whole well\")", () => {
