@@ -3,6 +3,7 @@ export * from "./qc-flags.js";
 export * from "./plausibility-limits.js";
 export * from "./input-issues.js";
 export * from "./numeric-column.js";
+export * from "./json-columns.js";
 export * from "./input-screening.js";
 export * from "./elastic-kernel.js";
 export * from "./elastic-log.js";

@@ -165,11 +165,22 @@ const FLAG_MASK_TYPE = new Uint32();
 
 /** A float64 column whose NaNs are Arrow nulls; the values are shared, not copied. */
 const nullableFloat64 = (values: Float64Array): Data<Float64> => {
-  let nullCount = 0;
-  for (let i = 0; i < values.length; i++) if (Number.isNaN(values[i])) nullCount++;
-  if (nullCount === 0) return makeData({ type: FLOAT64, length: values.length, nullCount, data: values });
+  // One pass, a bitmap byte at a time (bit set: the value is there; v === v is false for NaN only).
   const nullBitmap = new Uint8Array((values.length + 7) >> 3);
-  for (let i = 0; i < values.length; i++) if (!Number.isNaN(values[i])) nullBitmap[i >> 3] |= 1 << (i & 7);
+  let present = 0;
+  for (let byte = 0, i = 0; i < values.length; byte++) {
+    let bits = 0;
+    for (let bit = 0; bit < 8 && i < values.length; bit++, i++) {
+      const value = values[i];
+      if (value === value) {
+        bits |= 1 << bit;
+        present++;
+      }
+    }
+    nullBitmap[byte] = bits;
+  }
+  const nullCount = values.length - present;
+  if (nullCount === 0) return makeData({ type: FLOAT64, length: values.length, nullCount, data: values });
   return makeData({ type: FLOAT64, length: values.length, nullCount, nullBitmap, data: values });
 };
 

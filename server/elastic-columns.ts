@@ -6,10 +6,10 @@ import { CAUTION, derivedColumnsAnswer } from "./derived-answer.js";
 import { deriveProperties } from "./derived-request.js";
 import { columnsAnswer } from "./elastic-answer.js";
 import { columnsRequest, intervalMidpoints } from "./elastic-request.js";
-import { parseJsonText } from "./json-text.js";
+import { parseJsonBody } from "./json-text.js";
 import { propertyColumns } from "./output-properties.js";
 import { invalidFields, ProblemError, UNKNOWN_FIELD_MESSAGE, unusableData, type ProblemFieldError } from "./problems.js";
-import { elasticColumnsBody, type ElasticArrowQuery } from "./schemas/elastic.js";
+import { elasticColumnFields, elasticColumnsBody, type ElasticArrowQuery } from "./schemas/elastic.js";
 import { limitFields } from "./schemas/limits.js";
 
 /**
@@ -77,8 +77,17 @@ export const splitAtColumns = (answer: object): Pick<AnswerParts, "parts" | "col
   return { parts, columns };
 };
 
-/** A column as JSON text: JSON.stringify of a plain array writes NaN as null and every number in its shortest exact form. */
-export const columnJson = (column: Float64Array): string => JSON.stringify(Array.from(column));
+/**
+ * A column as JSON text: JSON.stringify of a plain array writes NaN as null and every number in its shortest exact form.
+ * The array is built by push, which keeps it packed: V8 writes a packed array of doubles on its fast path, and builds
+ * it about twice as fast as Array.from does from a typed array (an array made at full length is holey, and written
+ * about half as fast).
+ */
+export const columnJson = (column: Float64Array): string => {
+  const values: number[] = [];
+  for (let i = 0; i < column.length; i++) values.push(column[i]);
+  return JSON.stringify(values);
+};
 
 /**
  * `POST /v1/elastic` from the raw body to the answer: parse (secure JSON, or Arrow), validate with the route's
@@ -91,7 +100,7 @@ export const prepareColumnsAnswer = (input: ColumnsBody, maxSamples: number, for
   try {
     raw =
       input.kind === "json"
-        ? parseJsonText(Buffer.from(input.bytes.buffer, input.bytes.byteOffset, input.bytes.byteLength).toString("utf8"))
+        ? parseJsonBody(input.bytes, elasticColumnFields)
         : bodyFromArrow(input.bytes, input.query);
   } catch (error) {
     if (isInputIssues(error)) throw unusableData(error.message, error.issues, "body");

@@ -1,4 +1,5 @@
 import secureJson from "secure-json-parse";
+import { readJsonColumns } from "../core/index.js";
 import { ProblemError } from "./problems.js";
 
 /** Line and column (1-based) of a character offset, so a script author can find the mistake. */
@@ -42,3 +43,11 @@ export const parseJsonText = (text: string): unknown => {
   if (text.includes('"constructor"') && hasConstructorKey(value)) throw new ProblemError("forbidden-key", FORBIDDEN_KEY);
   return value;
 };
+
+/**
+ * A JSON body given as bytes, with the arrays of numbers and nulls under `columnKeys` of the top-level object
+ * read straight into Float64Arrays (null as NaN): core's reader (core/json-columns.ts) for what it reads, and
+ * parseJsonText for what it declines, so an error or a refused key is worded exactly as before.
+ */
+export const parseJsonBody = (bytes: Uint8Array, columnKeys: ReadonlySet<string>): unknown =>
+  readJsonColumns(bytes, columnKeys) ?? parseJsonText(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString("utf8"));

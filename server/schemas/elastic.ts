@@ -102,13 +102,19 @@ export const elasticPointResponse = z
   })
   .meta({ id: "ElasticPoint", description: "Dynamic elastic properties of one sample, with its QC flags." });
 
-const column = (description: string) =>
-  z
+/** The schemas made by `column`, so the body's column fields are known from the schema itself. */
+const columnSchemas = new Set<z.ZodType>();
+
+const column = (description: string) => {
+  const schema = z
     .custom<unknown[] | Float64Array>((value) => Array.isArray(value) || value instanceof Float64Array, {
       message: "expected an array of numbers and nulls",
     })
     .optional()
     .meta({ type: "array", items: { type: ["number", "null"] }, description });
+  columnSchemas.add(schema);
+  return schema;
+};
 
 export const elasticColumnsBody = z
   .strictObject({
@@ -166,6 +172,11 @@ export const elasticColumnsBody = z
       },
     ],
   });
+
+/** Fields of the body that are columns (one number or null per sample): a JSON body's are read straight into Float64Arrays. */
+export const elasticColumnFields: ReadonlySet<string> = new Set(
+  Object.entries(elasticColumnsBody.shape).flatMap(([key, schema]) => (columnSchemas.has(schema) ? [key] : [])),
+);
 
 const resultColumn = (description: string) =>
   z.array(z.number().nullable()).meta({ description: `${description} One value per input row; null where the sample is invalid.` });
