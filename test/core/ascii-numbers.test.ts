@@ -5,7 +5,7 @@
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { AsciiText, writeFixed, writeShortest, writeSignificant } from "../../core/ascii-numbers.js";
+import { AsciiText, numberTexts, writeFixed, writeShortest, writeSignificant } from "../../core/ascii-numbers.js";
 
 const written = (write: (text: AsciiText) => void): string => {
   const text = new AsciiText(4);
@@ -33,6 +33,23 @@ describe("writeShortest (ECMA-262 Number::toString)", () => {
     for (const value of [0, -0, 1e-6, 1e-7, 1e15, 1e15 - 1, 0.1 + 0.2, 2150.1524, -999.25, 5e-324, Number.MAX_VALUE]) {
       expect(written((text) => writeShortest(text, value))).toBe(String(value));
     }
+  });
+});
+
+describe("numberTexts (a column's texts as JSON.stringify writes them)", () => {
+  it("gives value i the text String(value), or null for NaN and ±Infinity (ECMA-262 SerializeJSONProperty)", () => {
+    const value = fc.oneof(anyDouble, logDecimal, fc.constantFrom(NaN, Infinity, -Infinity, -0, 0, 5e-324));
+    fc.assert(
+      fc.property(fc.array(value, { maxLength: 40 }), (values) => {
+        const { bytes, starts } = numberTexts(Float64Array.from(values));
+        expect(starts).toHaveLength(values.length + 1);
+        values.forEach((v, i) => {
+          const text = Buffer.from(bytes.subarray(starts[i], starts[i + 1] - 1)).toString("latin1");
+          expect(text).toBe(Number.isFinite(v) ? String(v) : "null");
+        });
+      }),
+      { numRuns: 3000 },
+    );
   });
 });
 
