@@ -3,6 +3,9 @@ import {
   flagCodesOf,
   severityOf,
   summariseFlags,
+  summariseZones,
+  type DerivedColumn,
+  type Zone,
   type ElasticLog,
   type ElasticLogRequest,
   type FlagCode,
@@ -14,7 +17,8 @@ import {
   type SlownessUnit,
   type VelocityUnit,
 } from "../core/index.js";
-import { OUTPUT_PROPERTIES, type PropertyKey } from "./output-properties.js";
+import { CAUTION, derivedColumnsAnswer } from "./derived-answer.js";
+import { OUTPUT_PROPERTIES, propertyColumns, type PropertyKey } from "./output-properties.js";
 import { fromPlausibilityLimits } from "./schemas/limits.js";
 
 const MEANING = new Map(FLAGS.map((flag) => [flag.code, flag.meaning]));
@@ -129,3 +133,19 @@ export const columnsAnswer = (
     limits: fromPlausibilityLimits(request.limits),
   };
 };
+
+/**
+ * What the column answers of `POST /v1/elastic` and `POST /v1/logs` add after the columns, when asked: zone
+ * statistics (over `depth`), how many samples gap filling predicted, and the empirical estimates with their caution.
+ */
+export const answerExtras = (
+  log: ElasticLog,
+  request: ElasticLogRequest,
+  zones: readonly Zone[] | undefined,
+  depth: Float64Array | undefined,
+  derived: Map<string, DerivedColumn> | undefined,
+) => ({
+  ...(zones && depth && { zones: summariseZones(depth, zones, propertyColumns(log), log.flags, log.invalidMask) }),
+  ...((request.fillShear || request.fillDensity) && { filled: log.filled }),
+  ...(derived && { derived: derivedColumnsAnswer(derived), caution: CAUTION }),
+});

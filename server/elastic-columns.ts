@@ -1,13 +1,11 @@
 import { randomUUID } from "node:crypto";
 import type { z } from "zod";
-import { computeElasticLog, isInputIssues, summariseZones, type FlagSummary } from "../core/index.js";
+import { computeElasticLog, isInputIssues, type FlagSummary } from "../core/index.js";
 import { decodeArrowColumns, encodeArrowAnswer } from "./arrow-codec.js";
-import { CAUTION, derivedColumnsAnswer } from "./derived-answer.js";
 import { deriveProperties } from "./derived-request.js";
-import { columnsAnswer } from "./elastic-answer.js";
+import { answerExtras, columnsAnswer } from "./elastic-answer.js";
 import { columnsRequest, intervalMidpoints } from "./elastic-request.js";
 import { parseJsonBody } from "./json-text.js";
-import { propertyColumns } from "./output-properties.js";
 import { invalidFields, ProblemError, UNKNOWN_FIELD_MESSAGE, unusableData, type ProblemFieldError } from "./problems.js";
 import { elasticColumnFields, elasticColumnsBody, type ElasticArrowQuery } from "./schemas/elastic.js";
 import { limitFields } from "./schemas/limits.js";
@@ -132,12 +130,7 @@ export const prepareColumnsAnswer = (input: ColumnsBody, maxSamples: number, for
       }
       return { kind: "arrow", pieces: encodeArrowAnswer(log, request.core, body.units, request), summary: answer.summary };
     }
-    const full = {
-      ...answer,
-      ...(body.zones && depth && { zones: summariseZones(depth, body.zones, propertyColumns(log), log.flags, log.invalidMask) }),
-      ...((request.core.fillShear || request.core.fillDensity) && { filled: log.filled }),
-      ...(derived && { derived: derivedColumnsAnswer(derived), caution: CAUTION }),
-    };
+    const full = { ...answer, ...answerExtras(log, request.core, body.zones, depth, derived) };
     return { kind: "json", ...splitAtColumns(full), summary: answer.summary };
   } catch (error) {
     if (isInputIssues(error)) throw unusableData(error.message, error.issues, "body");

@@ -1,16 +1,14 @@
-import { summariseZones, type DerivedColumn, type Zone } from "../core/index.js";
-import { CAUTION, derivedColumnsAnswer } from "./derived-answer.js";
-import { columnsAnswer, type UnitsChosen } from "./elastic-answer.js";
-import { propertyColumns } from "./output-properties.js";
+import type { DerivedColumn, Zone } from "../core/index.js";
+import { answerExtras, columnsAnswer, type UnitsChosen } from "./elastic-answer.js";
 import { ProblemError } from "./problems.js";
 import type { WellConversion } from "./well-conversion.js";
 
-/** Zone statistics over a depth column, or a 400 problem when zones were asked for a well without depth. */
-export const zoneSummaries = (conversion: WellConversion, zones: readonly Zone[]) => {
+/** The depth column that places zones, or a 400 problem when zones were asked for a well without depth. */
+const depthForZones = (conversion: WellConversion): Float64Array => {
   if (conversion.depth === undefined) {
     throw new ProblemError("unusable-file", "Zones were given but no depth curve was found; name it with depth_curve.");
   }
-  return summariseZones(conversion.depth, zones, propertyColumns(conversion.log), conversion.log.flags, conversion.log.invalidMask);
+  return conversion.depth;
 };
 
 const nullable = (value: string | undefined): string | null => (value === undefined || value === "" ? null : value);
@@ -45,8 +43,6 @@ export const logsAnswer = (conversion: WellConversion, zones: readonly Zone[] | 
     curves: curves as Required<Pick<typeof curves, "vp">> & Omit<typeof curves, "vp">,
     input_curves: file.table.curves.map(({ mnemonic, unit, description }) => ({ mnemonic, unit, description })),
     warnings: conversion.warnings,
-    ...(zones && { zones: zoneSummaries(conversion, zones) }),
-    ...((request.fillShear || request.fillDensity) && { filled: conversion.log.filled }),
-    ...(derived && { derived: derivedColumnsAnswer(derived), caution: CAUTION }),
+    ...answerExtras(conversion.log, request, zones, zones && depthForZones(conversion), derived),
   };
 };

@@ -7,6 +7,11 @@ import { FLAG_CODES, type FlagCode } from "../../core/index.js";
 export interface ElasticMetrics {
   /** Counts the samples of one converted request and, per QC flag code, the samples that carry it (a `FlagSummary.flags`). */
   recordConversion(samples: number, flagCounts: Partial<Record<FlagCode, number>>): void;
+  /**
+   * Counts a streamed answer cut short by a problem found after it had begun: such a response is destroyed, so it
+   * never reaches the request counter and histogram (Fastify runs no onResponse hook for it).
+   */
+  recordCutShort(route: string): void;
 }
 
 declare module "fastify" {
@@ -56,6 +61,12 @@ async function metricsPlugin(app: FastifyInstance): Promise<void> {
     labelNames: ["code"],
     registers: [registry],
   });
+  const cutShort = new Counter({
+    name: "elastilog_answers_cut_short_total",
+    help: "Streamed answers cut short, by route pattern: the file failed after the answer had begun (the client saw an incomplete transfer).",
+    labelNames: ["route"],
+    registers: [registry],
+  });
   // Every code gets its series at zero, so a rate over a code that has not been raised yet is 0, not absent.
   for (const code of FLAG_CODES) flagged.labels(code).inc(0);
 
@@ -66,6 +77,9 @@ async function metricsPlugin(app: FastifyInstance): Promise<void> {
         const count = flagCounts[code];
         if (count !== undefined && count > 0) flagged.labels(code).inc(count);
       }
+    },
+    recordCutShort(route: string): void {
+      cutShort.labels(route).inc();
     },
   });
 

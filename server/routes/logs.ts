@@ -76,6 +76,8 @@ const UPLOAD_PROBLEMS = {
   unknownField: (name: string) => new ProblemError("invalid-request", `Unknown form field "${name}": send one file part and optionally a zones part.`),
   severalFiles: () => new ProblemError("invalid-request", "Send one well file per request; this upload has several file parts."),
   noFile: () => new ProblemError("invalid-request", "The multipart upload has no file part: use curl -F file=@well.las."),
+  fileTooLarge: (byteLimit: number) =>
+    new ProblemError("body-too-large", `The file part is larger than this endpoint's limit of ${byteLimit} bytes. Split the well, or ask the operator to raise FILE_BODY_LIMIT_BYTES.`),
 };
 
 const ZONES_NEED_JSON = "Zone statistics are part of the JSON answer: ask for format=json, or leave zones out for CSV, LAS and NDJSON.";
@@ -90,7 +92,7 @@ const readMultipart = async (request: FastifyRequest, byteLimit: number): Promis
 };
 
 /** The bytes of the one file part of a multipart upload as they arrive, for an answer without zones. */
-async function* multipartFile(request: FastifyRequest): AsyncGenerator<Buffer> {
+async function* multipartFile(request: FastifyRequest, byteLimit: number): AsyncGenerator<Buffer> {
   let seen = false;
   try {
     for await (const part of request.parts()) {
@@ -101,7 +103,7 @@ async function* multipartFile(request: FastifyRequest): AsyncGenerator<Buffer> {
       if (seen) throw UPLOAD_PROBLEMS.severalFiles();
       seen = true;
       for await (const chunk of part.file) yield chunk as Buffer;
-      if (part.file.truncated) throw new ProblemError("body-too-large", "The file part is larger than this endpoint's limit of FILE_BODY_LIMIT_BYTES bytes.");
+      if (part.file.truncated) throw UPLOAD_PROBLEMS.fileTooLarge(byteLimit);
     }
   } catch (error) {
     throw multipartProblem(error);
@@ -136,6 +138,7 @@ const streamAnswer = async (request: FastifyRequest, reply: FastifyReply, pieces
         { method: request.method, url: request.url, status: reply.statusCode, ms: Math.round(reply.elapsedTime * 10) / 10, problem },
         "answer cut short: the file failed after streaming had begun",
       );
+      request.server.elasticMetrics.recordCutShort(request.routeOptions.url ?? request.url);
       throw error;
     }
   }
@@ -152,7 +155,7 @@ const readMultipartParts = async (request: FastifyRequest, byteLimit: number): P
     } else if (part.type === "file") {
       if (file !== undefined) throw UPLOAD_PROBLEMS.severalFiles();
       file = await readBytes(part.file, byteLimit);
-      if (part.file.truncated) throw new ProblemError("body-too-large", `The file part is larger than the limit of ${byteLimit} bytes.`);
+      if (part.file.truncated) throw UPLOAD_PROBLEMS.fileTooLarge(byteLimit);
     } else if (part.fieldname === "zones") {
       zones = zonesFromPart(part.value);
     } else {
@@ -236,7 +239,7 @@ export default async function logsRoutes(instance: FastifyInstance, options: Log
       }
       if (format !== "json") {
         if (zones !== undefined) throw new ProblemError("invalid-request", ZONES_NEED_JSON, [{ field: "query.zones", message: `not available with format ${format}` }]);
-        const source = request.isMultipart() ? multipartFile(request) : (request.body as Readable);
+        const source = request.isMultipart() ? multipartFile(request, options.fileBodyLimitBytes) : (request.body as Readable);
         const task = { query, format, maxSamples: options.maxSamples, byteLimit: options.fileBodyLimitBytes };
         const pieces = convertWellStream(source, task, (summary) => app.elasticMetrics.recordConversion(summary.count, summary.flags));
         return streamAnswer(request, reply, pieces, CONTENT_TYPES[format]);

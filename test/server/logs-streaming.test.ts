@@ -190,5 +190,8 @@ describe("streaming over a real socket (undici client)", () => {
     const health = await request(`${base}/livez`);
     expect(health.statusCode).toBe(200);
     await health.body.dump();
+    // The destroyed response never reaches the request counter; its own counter says it happened.
+    const metrics = await (await request(`${base}/metrics`)).body.text();
+    expect(metrics).toMatch(/^elastilog_answers_cut_short_total\{route="\/v1\/logs"\} 1$/m);
   });
 });

@@ -201,6 +201,15 @@ describe("POST /v1/logs", () => {
     const large = await upload(DEMO_LAS, "", { "content-type": "text/plain" }, { fileBodyLimitBytes: 1000 });
     expect(large.statusCode).toBe(413);
     expect(large.json().detail).toContain("1000 bytes");
+    // A multipart file part over the limit gets the same answer, whether the file is read whole (JSON) or streamed (CSV).
+    const { body, contentType } = multipartBody([{ name: "file", filename: "well.las", content: DEMO_LAS }]);
+    for (const format of ["json", "csv"]) {
+      const part = await upload(body, `?format=${format}`, { "content-type": contentType }, { fileBodyLimitBytes: 1000 });
+      expect(part.statusCode, format).toBe(413);
+      expect(part.json().detail, format).toBe(
+        "The file part is larger than this endpoint's limit of 1000 bytes. Split the well, or ask the operator to raise FILE_BODY_LIMIT_BYTES.",
+      );
+    }
     const rows = await upload(SMALL_CSV, "", { "content-type": "text/plain" }, { maxSamples: 3 });
     expect(rows.statusCode).toBe(413);
     expect(rows.json().type).toBe("/problems/too-many-samples");
