@@ -65,6 +65,15 @@ export class AsciiText {
     this.append(UTF8.encode(text));
   }
 
+  /** Appends `bytes[start..end)`, which must be ASCII. */
+  copy(bytes: Uint8Array, start: number, end: number): void {
+    this.ensure(end - start);
+    const buffer = this.buffer;
+    let at = this.length;
+    for (let i = start; i < end; i++) buffer[at++] = bytes[i];
+    this.length = at;
+  }
+
   /** Appends bytes as they are. */
   append(bytes: Uint8Array): void {
     this.ensure(bytes.length);
@@ -230,3 +239,31 @@ export const numberTexts = (values: Float64Array): NumberTexts => {
   starts[values.length] = bytes.length;
   return { bytes, starts };
 };
+
+/** Appends the text of value `index` of `texts`. */
+export const writeFromTexts = (text: AsciiText, texts: NumberTexts, index: number): void =>
+  text.copy(texts.bytes, texts.starts[index], texts.starts[index + 1] - 1);
+
+/** Finite values looked at to judge a column: a decimal as logs hold it has at most this many characters. */
+const JUDGED_VALUES = 4;
+const SHORT_DECIMAL_CHARACTERS = 15;
+
+/** True when the first finite values of the column are full-precision doubles (computed values, not a log's decimals). */
+const holdsFullDoubles = (column: Float64Array): boolean => {
+  let judged = 0;
+  for (let i = 0; i < column.length && judged < JUDGED_VALUES; i++) {
+    if (!Number.isFinite(column[i])) continue;
+    if (String(column[i]).length > SHORT_DECIMAL_CHARACTERS) return true;
+    judged++;
+  }
+  return false;
+};
+
+/**
+ * For each column written in the shortest form whose values are full-precision doubles, their texts at once
+ * (numberTexts, three times faster than String per value); undefined for the other columns, whose values
+ * writeNumber writes faster one by one (a log's decimals take writeShortest's fast path). The text is the same
+ * either way: the choice is one of speed only.
+ */
+export const shortestTextsOf = (columns: readonly Float64Array[], formats: readonly NumberFormat[]): (NumberTexts | undefined)[] =>
+  columns.map((column, c) => (formats[c].kind === "shortest" && holdsFullDoubles(column) ? numberTexts(column) : undefined));

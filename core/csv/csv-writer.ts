@@ -1,4 +1,4 @@
-import { AsciiText, asciiString, SHORTEST, writeNumber, type NumberFormat } from "../ascii-numbers.js";
+import { AsciiText, asciiString, shortestTextsOf, SHORTEST, writeFromTexts, writeNumber, type NumberFormat, type NumberTexts } from "../ascii-numbers.js";
 
 export interface CsvTable {
   curves: readonly { name: string; unit: string }[];
@@ -25,13 +25,22 @@ const COMMA = 44;
 const QUOTE = 34;
 
 /** Row `row` of `columns` as one record with its CRLF: a NaN is an empty cell; a record that would be an empty line (one column holding NaN) is `""`, because readers skip blank lines. */
-const writeRecord = (text: AsciiText, columns: readonly Float64Array[], formats: readonly NumberFormat[], row: number): void => {
+const writeRecord = (
+  text: AsciiText,
+  columns: readonly Float64Array[],
+  formats: readonly NumberFormat[],
+  row: number,
+  texts: readonly (NumberTexts | undefined)[],
+): void => {
   const start = text.length;
   for (let column = 0; column < columns.length; column++) {
     if (column > 0) text.byte(COMMA);
     const value = columns[column][row];
-    if (Number.isFinite(value)) writeNumber(text, value, formats[column]);
-    else if (!Number.isNaN(value)) text.ascii(String(value));
+    const written = texts[column];
+    if (!Number.isFinite(value)) {
+      if (!Number.isNaN(value)) text.ascii(String(value));
+    } else if (written !== undefined) writeFromTexts(text, written, row);
+    else writeNumber(text, value, formats[column]);
   }
   if (text.length === start) {
     text.byte(QUOTE);
@@ -54,7 +63,8 @@ const checkColumns = (columns: readonly Float64Array[], formats: readonly Number
  */
 export const writeCsvRecords = (text: AsciiText, columns: readonly Float64Array[], formats: readonly NumberFormat[]): void => {
   const rows = checkColumns(columns, formats);
-  for (let row = 0; row < rows; row++) writeRecord(text, columns, formats, row);
+  const texts = shortestTextsOf(columns, formats);
+  for (let row = 0; row < rows; row++) writeRecord(text, columns, formats, row, texts);
 };
 
 /**
@@ -71,8 +81,9 @@ export function* writeCsv(table: CsvTable): Generator<string> {
   const rows = checkColumns(columns, formats);
   let header = csvHeaderRecord(curves);
   const text = new AsciiText();
+  const texts = columns.map(() => undefined);
   for (let row = 0; row < rows; row++) {
-    writeRecord(text, columns, formats, row);
+    writeRecord(text, columns, formats, row, texts);
     if (header.length + text.length >= CHUNK_CHARACTERS) {
       yield header + asciiString(text.take());
       header = "";

@@ -1,7 +1,7 @@
 import type { CurveInfo } from "../well-table.js";
 import { isItemSection, type LasDocument, type LasSection } from "./las-document.js";
 import { writeLasHeader, type LasItemToWrite } from "./las-header-writer.js";
-import { AsciiText, asciiString, writeNumber } from "../ascii-numbers.js";
+import { AsciiText, asciiString, shortestTextsOf, writeFromTexts, writeNumber } from "../ascii-numbers.js";
 import { formatLasNumber, SHORTEST, type LasNumberFormat } from "./las-number-format.js";
 
 export interface LasCurveToWrite {
@@ -135,11 +135,15 @@ export const createLasTextWriter = (layout: LasLayout): LasTextWriter => {
   const rows = (text: AsciiText, columns: readonly Float64Array[], from = 0, to?: number): void => {
     if (widths === undefined) throw new Error("begin() comes before the data lines");
     const count = Math.min(checked(columns), to ?? Infinity);
+    const texts = shortestTextsOf(columns.map((column) => column.subarray(from, Math.max(from, count))), formats);
     for (let i = from; i < count; i++) {
       for (let c = 0; c < columns.length; c++) {
         text.byte(SPACE);
         const start = text.length;
-        write(text, columns[c][i], c);
+        const value = columns[c][i];
+        const written = texts[c];
+        if (written !== undefined && Number.isFinite(value)) writeFromTexts(text, written, i - from);
+        else write(text, value, c);
         text.padFrom(start, widths[c] - (text.length - start));
       }
       text.byte(13);

@@ -1,7 +1,8 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { parseCsv } from "../../../core/csv/csv-reader.js";
-import { writeCsv, type CsvTable } from "../../../core/csv/csv-writer.js";
+import { AsciiText, SHORTEST } from "../../../core/ascii-numbers.js";
+import { writeCsv, writeCsvRecords, type CsvTable } from "../../../core/csv/csv-writer.js";
 
 const text = (table: CsvTable): string => [...writeCsv(table)].join("");
 
@@ -107,6 +108,24 @@ describe("writeCsv then parseCsv", () => {
           );
         },
       ),
+    );
+  });
+});
+
+describe("writeCsvRecords (batches of a streamed answer)", () => {
+  it("writes full-precision doubles and a log's decimals alike as String(value) (ECMA-262 Number::toString), NaN empty, ±Infinity by name", () => {
+    const fullDouble = fc.double({ min: -1e12, max: 1e12, noNaN: true });
+    const logDecimal = fc.integer({ min: -1e7, max: 1e7 }).map((n) => n / 1e4);
+    const value = (kind: fc.Arbitrary<number>) => fc.oneof({ weight: 8, arbitrary: kind }, { weight: 1, arbitrary: fc.constantFrom(NaN, Infinity, -Infinity, -0) });
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 40 }).chain((rows) => fc.tuple(fc.array(value(fullDouble), { minLength: rows, maxLength: rows }), fc.array(value(logDecimal), { minLength: rows, maxLength: rows }))), ([computed, decimals]) => {
+        const text = new AsciiText(8);
+        writeCsvRecords(text, [Float64Array.from(computed), Float64Array.from(decimals)], [SHORTEST, SHORTEST]);
+        const cell = (v: number) => (Number.isNaN(v) ? "" : String(v));
+        const expected = computed.map((v, i) => `${cell(v)},${cell(decimals[i])}`);
+        expect(Buffer.from(text.take()).toString("latin1")).toBe(expected.map((record) => `${record}\r\n`).join(""));
+      }),
+      { numRuns: 2000 },
     );
   });
 });
