@@ -76,23 +76,18 @@ const ESTIMATED_VS = flagBit("estimated_vs");
 const ESTIMATED_RHO = flagBit("estimated_rho");
 const OUTSIDE_CALIBRATION = flagBit("outside_calibration");
 
-/** A copy divided by `divisor`, or the column itself when there is nothing to divide. */
-const divided = (column: Float64Array, divisor: number): Float64Array => {
-  if (divisor === 1) return column;
-  const out = new Float64Array(column.length);
-  for (let i = 0; i < column.length; i++) out[i] = column[i] / divisor;
-  return out;
-};
-
 /**
- * The column divided by `divisor` in place (the same quotients as `divided`), for SI columns nothing else reads:
- * a whole well's worth of columns is then neither allocated nor written twice.
+ * The column divided by `divisor` in place, for SI columns nothing else reads: a whole well's worth of columns
+ * is then neither allocated nor written twice.
  */
 const dividedInPlace = (column: Float64Array, divisor: number): Float64Array => {
   if (divisor === 1) return column;
   for (let i = 0; i < column.length; i++) column[i] = column[i] / divisor;
   return column;
 };
+
+/** A copy divided by `divisor` (the same quotients), or the column itself when there is nothing to divide. */
+const divided = (column: Float64Array, divisor: number): Float64Array => (divisor === 1 ? column : dividedInPlace(column.slice(), divisor));
 
 /**
  * Replaces unusable samples of an input (SI column `si`, screening bits `own`) by a correlation's prediction

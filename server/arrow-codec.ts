@@ -29,15 +29,15 @@ import {
 } from "../core/index.js";
 import type { UnitsChosen } from "./elastic-answer.js";
 import { OUTPUT_PROPERTIES } from "./output-properties.js";
+import { elasticColumnFields } from "./schemas/elastic.js";
 import { fromPlausibilityLimits } from "./schemas/limits.js";
 import { SERVICE_VERSION } from "./version.js";
 
 /** IANA media type of the Arrow IPC streaming format. */
 export const ARROW_STREAM_MEDIA_TYPE = "application/vnd.apache.arrow.stream";
 
-/** Columns an Arrow body may carry, named as in the JSON body of `POST /v1/elastic`. */
-export const ARROW_INPUT_COLUMNS = ["depth", "top", "base", "vp", "vs", "dtc", "dts", "rho"] as const;
-export type ArrowInputColumn = (typeof ARROW_INPUT_COLUMNS)[number];
+/** Columns an Arrow body may carry: the column fields of the JSON body of `POST /v1/elastic`, from its schema. */
+export const ARROW_INPUT_COLUMNS: readonly string[] = [...elasticColumnFields];
 
 export interface ArrowColumns {
   /** Rows of every column. */
@@ -46,7 +46,7 @@ export interface ArrowColumns {
    * The columns present, as float64 with NaN where Arrow held a null. A float64 column of a single
    * record batch without nulls is a view on the decoded bytes (zero copy): do not reuse those bytes meanwhile.
    */
-  columns: Partial<Record<ArrowInputColumn, Float64Array>>;
+  columns: Partial<Record<string, Float64Array>>;
 }
 
 const ACCEPTED_TYPES = "float64 (or float32, float16, a signed or unsigned integer, or null)";
@@ -57,14 +57,13 @@ const hasPrecision = (type: DataType, precision: Precision): boolean => DataType
 const isAccepted = (type: DataType): boolean =>
   type.typeId === Type.Float || type.typeId === Type.Int || type.typeId === Type.Null;
 
-const isInputColumn = (name: string): name is ArrowInputColumn => (ARROW_INPUT_COLUMNS as readonly string[]).includes(name);
 
 /** Every issue with the column names and types; an empty list when all can be read. */
 const schemaIssues = (fields: readonly Field[]): InputIssue[] => {
   const issues: InputIssue[] = [];
   const seen = new Set<string>();
   for (const field of fields) {
-    if (!isInputColumn(field.name)) {
+    if (!elasticColumnFields.has(field.name)) {
       issues.push({ field: field.name, message: `is not a column of this request; the columns are ${ARROW_INPUT_COLUMNS.join(", ")}` });
     } else if (seen.has(field.name)) {
       issues.push({ field: field.name, message: "is given twice; give each column once" });
@@ -154,7 +153,7 @@ export const decodeArrowColumns = (bytes: Uint8Array): ArrowColumns => {
   const columns: ArrowColumns["columns"] = {};
   fields.forEach((field, index) => {
     const chunks = table.getChildAt(index)?.data ?? [];
-    columns[field.name as ArrowInputColumn] = readColumn(chunks, table.numRows, field.name, issues);
+    columns[field.name] = readColumn(chunks, table.numRows, field.name, issues);
   });
   if (issues.length > 0) throw new InputIssues(issues);
   return { samples: table.numRows, columns };

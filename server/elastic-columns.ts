@@ -76,18 +76,6 @@ export const splitAtColumns = (answer: object): Pick<AnswerParts, "parts" | "col
 };
 
 /**
- * A column as JSON text: JSON.stringify of a plain array writes NaN as null and every number in its shortest exact form.
- * The array is built by push, which keeps it packed: V8 writes a packed array of doubles on its fast path, and builds
- * it about twice as fast as Array.from does from a typed array (an array made at full length is holey, and written
- * about half as fast).
- */
-export const columnJson = (column: Float64Array): string => {
-  const values: number[] = [];
-  for (let i = 0; i < column.length; i++) values.push(column[i]);
-  return JSON.stringify(values);
-};
-
-/**
  * `POST /v1/elastic` from the raw body to the answer: parse (secure JSON, or Arrow), validate with the route's
  * zod schema, compute, derive, and shape the answer as JSON parts or an Arrow stream. Pure and thread-safe:
  * it runs on the event loop for small bodies and on a worker thread for large ones. Throws ProblemError for

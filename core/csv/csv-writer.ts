@@ -1,4 +1,4 @@
-import { AsciiText, asciiString, shortestTextsOf, SHORTEST, writeFromTexts, writeNumber, type NumberFormat, type NumberTexts } from "../ascii-numbers.js";
+import { AsciiText, asciiString, shortestTextsOf, SHORTEST, writeColumnValue, type NumberFormat, type NumberTexts } from "../ascii-numbers.js";
 
 export interface CsvTable {
   curves: readonly { name: string; unit: string }[];
@@ -36,11 +36,8 @@ const writeRecord = (
   for (let column = 0; column < columns.length; column++) {
     if (column > 0) text.byte(COMMA);
     const value = columns[column][row];
-    const written = texts[column];
-    if (!Number.isFinite(value)) {
-      if (!Number.isNaN(value)) text.ascii(String(value));
-    } else if (written !== undefined) writeFromTexts(text, written, row);
-    else writeNumber(text, value, formats[column]);
+    if (Number.isFinite(value)) writeColumnValue(text, value, formats[column], texts[column], row);
+    else if (!Number.isNaN(value)) text.ascii(String(value));
   }
   if (text.length === start) {
     text.byte(QUOTE);
@@ -81,7 +78,7 @@ export function* writeCsv(table: CsvTable): Generator<string> {
   const rows = checkColumns(columns, formats);
   let header = csvHeaderRecord(curves);
   const text = new AsciiText();
-  const texts = columns.map(() => undefined);
+  const texts = shortestTextsOf(columns, formats);
   for (let row = 0; row < rows; row++) {
     writeRecord(text, columns, formats, row, texts);
     if (header.length + text.length >= CHUNK_CHARACTERS) {

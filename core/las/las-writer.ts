@@ -1,7 +1,7 @@
 import type { CurveInfo } from "../well-table.js";
 import { isItemSection, type LasDocument, type LasSection } from "./las-document.js";
 import { writeLasHeader, type LasItemToWrite } from "./las-header-writer.js";
-import { AsciiText, asciiString, shortestTextsOf, writeFromTexts, writeNumber } from "../ascii-numbers.js";
+import { AsciiText, asciiString, shortestTextsOf, writeColumnValue, type NumberTexts } from "../ascii-numbers.js";
 import { formatLasNumber, SHORTEST, type LasNumberFormat } from "./las-number-format.js";
 
 export interface LasCurveToWrite {
@@ -112,8 +112,9 @@ export const createLasTextWriter = (layout: LasLayout): LasTextWriter => {
     });
     return length;
   };
-  const write = (text: AsciiText, value: number, c: number): void => {
-    if (Number.isFinite(value)) writeNumber(text, value, formats[c]);
+  /** Value `index` of curve `c`, from the curve's texts when the batch has them (see `shortestTextsOf`). */
+  const write = (text: AsciiText, value: number, c: number, texts?: NumberTexts, index = 0): void => {
+    if (Number.isFinite(value)) writeColumnValue(text, value, formats[c], texts, index);
     else text.ascii(nullText);
   };
   const begin = (sample: readonly Float64Array[]): string => {
@@ -140,10 +141,7 @@ export const createLasTextWriter = (layout: LasLayout): LasTextWriter => {
       for (let c = 0; c < columns.length; c++) {
         text.byte(SPACE);
         const start = text.length;
-        const value = columns[c][i];
-        const written = texts[c];
-        if (written !== undefined && Number.isFinite(value)) writeFromTexts(text, written, i - from);
-        else write(text, value, c);
+        write(text, columns[c][i], c, texts[c], i - from);
         text.padFrom(start, widths[c] - (text.length - start));
       }
       text.byte(13);

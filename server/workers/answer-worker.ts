@@ -2,7 +2,8 @@ import { readlinkSync } from "node:fs";
 import { setPriority } from "node:os";
 import { Piscina } from "piscina";
 import { isProblemError, type ProblemSlug, type ProblemFieldError } from "../problems.js";
-import { columnJson, prepareColumnsAnswer, type ColumnsBody, type PreparedAnswer } from "../elastic-columns.js";
+import { columnJson } from "../../core/index.js";
+import { prepareColumnsAnswer, type ColumnsBody, type PreparedAnswer } from "../elastic-columns.js";
 import { convertLogs, type LogsResult, type LogsTask } from "../logs-task.js";
 
 /** Nice value of the worker threads: above the event loop's 0, so that probes and small requests get a core first. */
