@@ -77,3 +77,14 @@ export const residentMegabytes = (pid: number, line: "VmHWM" | "VmRSS"): number 
   if (kibibytes === undefined) throw new Error(`/proc/${pid}/status has no ${line} line`);
   return (Number(kibibytes) * 1024) / 1e6;
 };
+
+/** Clock ticks per second of /proc/<pid>/stat's times (USER_HZ): 100 on every Linux architecture in use. */
+const TICKS_PER_SECOND = 100;
+
+/** CPU time a process has used, user and system, in ms (fields 14 and 15 of /proc/<pid>/stat, proc(5)), at 10 ms resolution. */
+export const cpuMilliseconds = (pid: number): number => {
+  const stat = readFileSync(`/proc/${pid}/stat`, "utf8");
+  // The command name (field 2) is in parentheses and may hold spaces: count fields after its closing one.
+  const fields = stat.slice(stat.lastIndexOf(")") + 2).split(" ");
+  return ((Number(fields[11]) + Number(fields[12])) * 1000) / TICKS_PER_SECOND;
+};

@@ -1,8 +1,12 @@
 import type { PlausibilityLimits } from "./plausibility-limits.js";
 import { flagBit } from "./qc-flags.js";
 
-/** Columns of the isotropic elastic properties of each sample, in SI units (Pa, m/s, kg/m3). NaN where invalid. */
-export interface ElasticColumnsSi {
+/**
+ * Columns of the isotropic elastic properties of each sample, each in its unit (see `UnitSizes`). NaN where invalid.
+ * `youngsModulusPascals` is E in Pa whatever the modulus unit: the empirical correlations take it in SI.
+ */
+export interface ElasticColumns {
+  youngsModulusPascals: Float64Array;
   youngsModulus: Float64Array;
   poissonsRatio: Float64Array;
   shearModulus: Float64Array;
@@ -29,24 +33,42 @@ const VS_RANGE = flagBit("vs_out_of_range");
 
 const outside = (value: number, min: number, max: number): boolean => value < min || value > max;
 
+/** Size of each output unit in SI: 1e9 for GPa, so that a value in Pa divided by it is in GPa. */
+export interface UnitSizes {
+  /** Moduli (E, G, K, λ, M), in Pa. */
+  modulus: number;
+  /** Impedances, in m/s·kg/m3. */
+  impedance: number;
+  /** λρ and μρ, in Pa·kg/m3. */
+  modulusDensity: number;
+}
+
+const SI: UnitSizes = { modulus: 1, impedance: 1, modulusDensity: 1 };
+
 /**
  * Isotropic elastic properties from Vp, Vs (m/s) and ρ (kg/m3), sample by sample
  * (Mavko, Mukerji & Dvorkin, The Rock Physics Handbook, 2nd ed., §2.2 / table 2.2.1):
  *   G = ρVs², M = ρVp², λ = M − 2G, K = M − 4G/3,
  *   ν = (Vp² − 2Vs²) / (2(Vp² − Vs²)),  E = G(3Vp² − 4Vs²) / (Vp² − Vs²) = 2G(1 + ν).
+ * Each value is computed in SI and divided by its unit's size as it is stored: the same quotient as dividing a
+ * stored SI column afterwards, without a second pass over a whole well's columns (sizes of 1 give SI).
  * Adds the ratio and range flags to `flags`; a sample whose mask meets `invalidMask` gets NaN.
  * NaN inputs (already flagged by screening) give NaN outputs.
  */
-export const computeElasticSi = (
+export const computeElasticColumns = (
   vp: Float64Array,
   vs: Float64Array,
   rho: Float64Array,
   flags: Uint32Array,
   invalidMask: number,
   limits: PlausibilityLimits,
-): ElasticColumnsSi => {
+  sizes: UnitSizes = SI,
+): ElasticColumns => {
   const n = vp.length;
+  const { modulus, impedance, modulusDensity } = sizes;
   const youngsModulus = new Float64Array(n);
+  // E in Pa is a column of its own only when the modulus unit is not Pa.
+  const youngsModulusPascals = modulus === 1 ? youngsModulus : new Float64Array(n);
   const poissonsRatio = new Float64Array(n);
   const shearModulus = new Float64Array(n);
   const bulkModulus = new Float64Array(n);
@@ -75,6 +97,7 @@ export const computeElasticSi = (
     if (ratio > vpVsMax) mask |= VP_VS_HIGH;
     flags[i] = mask;
     if ((mask & invalidMask) !== 0 || Number.isNaN(ratio + d)) {
+      youngsModulusPascals[i] = NaN;
       youngsModulus[i] = NaN;
       poissonsRatio[i] = NaN;
       shearModulus[i] = NaN;
@@ -93,19 +116,22 @@ export const computeElasticSi = (
     const g = d * s2;
     const m = d * p2;
     const lambda = m - 2 * g;
-    shearModulus[i] = g;
-    pWaveModulus[i] = m;
-    lameLambda[i] = lambda;
-    bulkModulus[i] = m - (4 / 3) * g;
+    const e = (g * (3 * p2 - 4 * s2)) / (p2 - s2);
+    shearModulus[i] = g / modulus;
+    pWaveModulus[i] = m / modulus;
+    lameLambda[i] = lambda / modulus;
+    bulkModulus[i] = (m - (4 / 3) * g) / modulus;
     poissonsRatio[i] = (p2 - 2 * s2) / (2 * (p2 - s2));
-    youngsModulus[i] = (g * (3 * p2 - 4 * s2)) / (p2 - s2);
+    youngsModulusPascals[i] = e;
+    youngsModulus[i] = e / modulus;
     vpVsRatio[i] = ratio;
-    pImpedance[i] = d * p;
-    sImpedance[i] = d * s;
-    lambdaRho[i] = lambda * d;
-    muRho[i] = g * d;
+    pImpedance[i] = (d * p) / impedance;
+    sImpedance[i] = (d * s) / impedance;
+    lambdaRho[i] = (lambda * d) / modulusDensity;
+    muRho[i] = (g * d) / modulusDensity;
   }
   return {
+    youngsModulusPascals,
     youngsModulus,
     poissonsRatio,
     shearModulus,

@@ -1,6 +1,6 @@
 import type { Correlation } from "./correlations/correlation.js";
 import { fillGaps, type FillMode } from "./correlations/fill-gaps.js";
-import { computeElasticSi } from "./elastic-kernel.js";
+import { computeElasticColumns } from "./elastic-kernel.js";
 import { densityToSi, sonicToMetresPerSecond, type DensityCurve, type SonicCurve } from "./input-screening.js";
 import type { PlausibilityLimits } from "./plausibility-limits.js";
 import { flagBit, invalidatingMask } from "./qc-flags.js";
@@ -76,18 +76,13 @@ const ESTIMATED_VS = flagBit("estimated_vs");
 const ESTIMATED_RHO = flagBit("estimated_rho");
 const OUTSIDE_CALIBRATION = flagBit("outside_calibration");
 
-/**
- * The column divided by `divisor` in place, for SI columns nothing else reads: a whole well's worth of columns
- * is then neither allocated nor written twice.
- */
-const dividedInPlace = (column: Float64Array, divisor: number): Float64Array => {
-  if (divisor === 1) return column;
-  for (let i = 0; i < column.length; i++) column[i] = column[i] / divisor;
-  return column;
-};
-
 /** A copy divided by `divisor` (the same quotients), or the column itself when there is nothing to divide. */
-const divided = (column: Float64Array, divisor: number): Float64Array => (divisor === 1 ? column : dividedInPlace(column.slice(), divisor));
+const divided = (column: Float64Array, divisor: number): Float64Array => {
+  if (divisor === 1) return column;
+  const result = new Float64Array(column.length);
+  for (let i = 0; i < column.length; i++) result[i] = column[i] / divisor;
+  return result;
+};
 
 /**
  * Replaces unusable samples of an input (SI column `si`, screening bits `own`) by a correlation's prediction
@@ -137,25 +132,26 @@ export const computeElasticLog = (request: ElasticLogRequest): ElasticLog => {
     filled.rho = result.count;
   }
   const invalidMask = invalidatingMask(request.keepNegativePoisson);
-  const si = computeElasticSi(vp, vs, rho, flags, invalidMask, request.limits);
   const modulus = MODULUS_UNITS[request.modulusUnit];
-  const modulusDensity = modulus * DENSITY_UNITS["g/cm3"];
-  const impedance = IMPEDANCE_UNITS[request.impedanceUnit];
+  const columns = computeElasticColumns(vp, vs, rho, flags, invalidMask, request.limits, {
+    modulus,
+    impedance: IMPEDANCE_UNITS[request.impedanceUnit],
+    modulusDensity: modulus * DENSITY_UNITS["g/cm3"],
+  });
   const velocity = VELOCITY_UNITS[request.velocityUnit];
   return {
     length,
-    // E in pascals, Vp and density in SI stay readable below (si, for the correlations): those are copied.
-    youngsModulus: divided(si.youngsModulus, modulus),
-    poissonsRatio: si.poissonsRatio,
-    shearModulus: dividedInPlace(si.shearModulus, modulus),
-    bulkModulus: dividedInPlace(si.bulkModulus, modulus),
-    lameLambda: dividedInPlace(si.lameLambda, modulus),
-    pWaveModulus: dividedInPlace(si.pWaveModulus, modulus),
-    vpVsRatio: si.vpVsRatio,
-    pImpedance: dividedInPlace(si.pImpedance, impedance),
-    sImpedance: dividedInPlace(si.sImpedance, impedance),
-    lambdaRho: dividedInPlace(si.lambdaRho, modulusDensity),
-    muRho: dividedInPlace(si.muRho, modulusDensity),
+    youngsModulus: columns.youngsModulus,
+    poissonsRatio: columns.poissonsRatio,
+    shearModulus: columns.shearModulus,
+    bulkModulus: columns.bulkModulus,
+    lameLambda: columns.lameLambda,
+    pWaveModulus: columns.pWaveModulus,
+    vpVsRatio: columns.vpVsRatio,
+    pImpedance: columns.pImpedance,
+    sImpedance: columns.sImpedance,
+    lambdaRho: columns.lambdaRho,
+    muRho: columns.muRho,
     vp: divided(vp, velocity),
     vs: divided(vs, velocity),
     flags,
@@ -164,8 +160,8 @@ export const computeElasticLog = (request: ElasticLogRequest): ElasticLog => {
     si: {
       vpMetresPerSecond: vp,
       densityKilogramsPerCubicMetre: rho,
-      dynamicYoungsModulusPascals: si.youngsModulus,
-      poissonsRatio: si.poissonsRatio,
+      dynamicYoungsModulusPascals: columns.youngsModulusPascals,
+      poissonsRatio: columns.poissonsRatio,
     },
   };
 };

@@ -25,6 +25,7 @@ import {
   type DepthUnit,
   type ElasticLog,
   type ElasticLogRequest,
+  type FlagSummary,
   type InputIssue,
 } from "../core/index.js";
 import type { UnitsChosen } from "./elastic-answer.js";
@@ -162,25 +163,45 @@ export const decodeArrowColumns = (bytes: Uint8Array): ArrowColumns => {
 const FLOAT64 = new Float64();
 const FLAG_MASK_TYPE = new Uint32();
 
+/** Set bits of each byte value, for counting the values present eight at a time. */
+const BITS_SET = Uint8Array.from({ length: 256 }, (_, byte) => {
+  let count = 0;
+  for (let rest = byte; rest !== 0; rest >>= 1) count += rest & 1;
+  return count;
+});
+
 /** A float64 column whose NaNs are Arrow nulls; the values are shared, not copied. */
 const nullableFloat64 = (values: Float64Array): Data<Float64> => {
-  // One pass, a bitmap byte at a time (bit set: the value is there; v === v is false for NaN only).
-  const nullBitmap = new Uint8Array((values.length + 7) >> 3);
+  // Validity bitmap (bit set: the value is there; v === v is false for NaN only), eight values per byte without
+  // a branch per value: the null pattern of a real log is irregular, and a mispredicted branch per value cost
+  // twice the time of the whole pass.
+  const length = values.length;
+  const whole = length >> 3;
+  const nullBitmap = new Uint8Array((length + 7) >> 3);
   let present = 0;
-  for (let byte = 0, i = 0; i < values.length; byte++) {
-    let bits = 0;
-    for (let bit = 0; bit < 8 && i < values.length; bit++, i++) {
-      const value = values[i];
-      if (value === value) {
-        bits |= 1 << bit;
-        present++;
-      }
-    }
+  for (let byte = 0; byte < whole; byte++) {
+    const i = byte << 3;
+    const bits =
+      (values[i] === values[i] ? 1 : 0) |
+      (values[i + 1] === values[i + 1] ? 2 : 0) |
+      (values[i + 2] === values[i + 2] ? 4 : 0) |
+      (values[i + 3] === values[i + 3] ? 8 : 0) |
+      (values[i + 4] === values[i + 4] ? 16 : 0) |
+      (values[i + 5] === values[i + 5] ? 32 : 0) |
+      (values[i + 6] === values[i + 6] ? 64 : 0) |
+      (values[i + 7] === values[i + 7] ? 128 : 0);
     nullBitmap[byte] = bits;
+    present += BITS_SET[bits];
   }
-  const nullCount = values.length - present;
-  if (nullCount === 0) return makeData({ type: FLOAT64, length: values.length, nullCount, data: values });
-  return makeData({ type: FLOAT64, length: values.length, nullCount, nullBitmap, data: values });
+  if (whole < nullBitmap.length) {
+    let bits = 0;
+    for (let i = whole << 3, bit = 0; i < length; i++, bit++) if (values[i] === values[i]) bits |= 1 << bit;
+    nullBitmap[whole] = bits;
+    present += BITS_SET[bits];
+  }
+  const nullCount = length - present;
+  if (nullCount === 0) return makeData({ type: FLOAT64, length, nullCount, data: values });
+  return makeData({ type: FLOAT64, length, nullCount, nullBitmap, data: values });
 };
 
 const unitMetadata = (unit: string) => new Map(unit === "" ? [] : [["elastilog.unit", unit]]);
@@ -196,6 +217,7 @@ export const encodeArrowAnswer = (
   request: ElasticLogRequest,
   units: UnitsChosen & { depth: DepthUnit },
   echo: { depth?: Float64Array; top?: Float64Array; base?: Float64Array },
+  summary: FlagSummary = summariseFlags(log.flags, log.invalidMask),
 ): Uint8Array[] => {
   const columns: { field: Field; data: Data }[] = [];
   for (const name of ["depth", "top", "base"] as const) {
@@ -219,7 +241,7 @@ export const encodeArrowAnswer = (
     ["elastilog.flag_severity", JSON.stringify(Object.fromEntries(FLAG_CODES.map((code) => [code, severityOf(code, log.invalidMask)])))],
     ["elastilog.units", JSON.stringify({ ...units, lambda_rho: lambdaRho?.unit(units) })],
     ["elastilog.limits", JSON.stringify(fromPlausibilityLimits(request.limits))],
-    ["elastilog.summary", JSON.stringify(summariseFlags(log.flags, log.invalidMask))],
+    ["elastilog.summary", JSON.stringify(summary)],
   ]);
   const fields = columns.map((column) => column.field);
   const batch = new RecordBatch(

@@ -1,6 +1,6 @@
 import { randomUUID } from "node:crypto";
 import type { z } from "zod";
-import { computeElasticLog, isInputIssues, type FlagSummary } from "../core/index.js";
+import { computeElasticLog, isInputIssues, summariseFlags, type FlagSummary } from "../core/index.js";
 import { decodeArrowColumns, encodeArrowAnswer } from "./arrow-codec.js";
 import { deriveProperties } from "./derived-request.js";
 import { answerExtras, columnsAnswer } from "./elastic-answer.js";
@@ -111,13 +111,15 @@ export const prepareColumnsAnswer = (input: ColumnsBody, maxSamples: number, for
       { correlations: body.correlations, options: body.correlation_options, zones: body.zones, depth, gapFillIds: [body.vs_from, body.rho_from] },
       "body",
     );
-    const answer = columnsAnswer(log, request.core, body.units, request);
     if (format === "arrow") {
       if (derived || body.zones) {
         throw new ProblemError("not-acceptable", "Correlations and zones are answered in JSON only: ask for application/json, or leave them out for an Arrow answer.");
       }
-      return { kind: "arrow", pieces: encodeArrowAnswer(log, request.core, body.units, request), summary: answer.summary };
+      // Straight to Arrow: the JSON answer's list of flagged samples would be built for nothing.
+      const summary = summariseFlags(log.flags, log.invalidMask);
+      return { kind: "arrow", pieces: encodeArrowAnswer(log, request.core, body.units, request, summary), summary };
     }
+    const answer = columnsAnswer(log, request.core, body.units, request);
     const full = { ...answer, ...answerExtras(log, request.core, body.zones, depth, derived) };
     return { kind: "json", ...splitAtColumns(full), summary: answer.summary };
   } catch (error) {

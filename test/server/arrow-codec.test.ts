@@ -86,6 +86,7 @@ describe("encodeArrowAnswer", () => {
             const read = table.getChild(property.key);
             expect(String(read?.type)).toBe("Float64");
             const expected = property.column(log);
+            expect(read?.nullCount, property.key).toBe(expected.filter(Number.isNaN).length);
             for (let i = 0; i < rows.length; i++) {
               const value = read?.get(i);
               if (Number.isNaN(expected[i])) expect(value).toBeNull();
