@@ -23,12 +23,12 @@ export const writeWellFile = (path: string, chunks: Iterable<string>): string =>
 };
 
 /** Posts a file as a stream and writes the answer to a file, as a script with curl would; returns the wall time. */
-const convertFile = async (base: string, source: string, format: "csv" | "las", target: string): Promise<number> => {
+const convertFile = async (base: string, source: string, format: "csv" | "las", target: string, input = format): Promise<number> => {
   await settle(base);
   const t0 = performance.now();
   const response = await request(`${base}/v1/logs?format=${format}`, {
     method: "POST",
-    headers: { "content-type": format === "csv" ? "text/csv" : "application/x-las" },
+    headers: { "content-type": input === "csv" ? "text/csv" : "application/x-las" },
     body: createReadStream(source),
   });
   if (response.statusCode !== 200) {
@@ -83,8 +83,16 @@ export const fileCases = async (base: string, well: SyntheticWell, folder: strin
 };
 
 /** A fresh server converts one LAS file; its peak resident set (VmHWM) is read before it stops. */
-export const memoryCase = async (samples: number, folder: string): Promise<Row[]> => {
-  const las = writeWellFile(join(folder, "marram-bank-7-long.las"), syntheticWellLas(syntheticWell(samples, 29)));
+/**
+ * Peak resident memory of a fresh server converting a long well to LAS: from a LAS file (streamed through), or from
+ * a CSV file, whose input columns are held until its last row (STRT, STOP and STEP come before the first data line).
+ */
+export const memoryCase = async (samples: number, folder: string, input: "las" | "csv"): Promise<Row[]> => {
+  const well = syntheticWell(samples, 29);
+  const source =
+    input === "las"
+      ? writeWellFile(join(folder, "marram-bank-7-long.las"), syntheticWellLas(well))
+      : writeWellFile(join(folder, "marram-bank-7-long.csv"), syntheticWellCsv(well));
   const port = await freePort();
   const server = await start(
     "memory",
@@ -95,11 +103,11 @@ export const memoryCase = async (samples: number, folder: string): Promise<Row[]
   try {
     const pid = server.pid as number;
     const idle = residentMegabytes(pid, "VmRSS");
-    const elapsed = await convertFile(`http://127.0.0.1:${port}`, las, "las", join(folder, "answer-long.las"));
+    const elapsed = await convertFile(`http://127.0.0.1:${port}`, source, "las", join(folder, "answer-long.las"), input);
     const peak = residentMegabytes(pid, "VmHWM");
     return [
       {
-        case: `Memory: LAS in and out, ${samples.toLocaleString("en")} samples (${(statSync(las).size / 1e6).toFixed(0)} MB file), fresh server`,
+        case: `Memory: ${input === "las" ? "LAS in and out" : "CSV in, LAS out (input columns held to the last row)"}, ${samples.toLocaleString("en")} samples (${(statSync(source).size / 1e6).toFixed(0)} MB file), fresh server`,
         measured: `peak resident ${peak.toFixed(0)} MB (VmHWM), converted in ${milliseconds(elapsed)}`,
         floor: `${idle.toFixed(0)} MB resident when idle`,
         ratio: "—",

@@ -129,7 +129,10 @@ const measureAll = async (folder: string): Promise<Row[]> => {
   } finally {
     await Promise.all([stop(service), bare && stop(bare)]);
   }
-  if (chosen("memory")) await attempt(rows, `Memory: LAS in and out, ${MEMORY_SAMPLES.toLocaleString("en")} samples`, "peak < 400 MB", () => memoryCase(MEMORY_SAMPLES, folder));
+  for (const input of chosen("memory") ? (["las", "csv"] as const) : []) {
+    const name = `Memory: ${input === "las" ? "LAS" : "CSV"} in, LAS out, ${MEMORY_SAMPLES.toLocaleString("en")} samples`;
+    await attempt(rows, name, "peak < 400 MB", () => memoryCase(MEMORY_SAMPLES, folder, input));
+  }
   return rows;
 };
 

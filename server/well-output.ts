@@ -38,8 +38,17 @@ export interface RowBatch {
 
 /** Writes a converted well batch by batch into `text`; the first batch's text begins with the header. */
 export interface WellOutput {
+  /**
+   * Set when the header describes every row (LAS out of a CSV file: STRT, STOP and STEP come before the first data
+   * line); the caller then tells `wholeFile`, before the first batch, how many rows the file has and how to get an
+   * input curve's values over all of them (curve `c` of the file, as `RowBatch.input` orders them).
+   */
+  needsWholeFile: boolean;
+  wholeFile(rows: number, curve: (c: number) => Float64Array): void;
   batch(rows: RowBatch, text: AsciiText): void;
 }
+
+const noWholeFile = { needsWholeFile: false, wholeFile: () => undefined } as const;
 
 /** Significant digits of computed values in CSV and LAS answers unless `digits=` says otherwise. */
 export const DEFAULT_DIGITS = 8;
@@ -77,6 +86,7 @@ const csvOutput = (header: WellHeader, plan: ConversionPlan, computed: NumberFor
   const units = outputUnits(plan);
   let formats: NumberFormat[] | undefined;
   return {
+    ...noWholeFile,
     batch(rows, text) {
       const columns = [...rows.input, ...computedColumns(rows)];
       if (formats === undefined) {
@@ -138,34 +148,50 @@ type CurveMeta = Omit<LasCurveToWrite, "values">;
  * The input curves as read, and how to pick their columns from a batch: a LAS file's own curves in its order; for a
  * CSV input, depth first (LAS needs its index first) or, without depth, a sample number.
  */
-const inputCurves = (header: WellHeader, plan: ConversionPlan): { curves: CurveMeta[]; columns: (rows: RowBatch) => Float64Array[] } => {
+const inputCurves = (
+  header: WellHeader,
+  plan: ConversionPlan,
+): {
+  curves: CurveMeta[];
+  columns: (input: readonly Float64Array[], first: number) => Float64Array[];
+  /** The first (index) curve's values over a whole file of `rows` rows, from the file's curves. */
+  index: (rows: number, curve: (c: number) => Float64Array) => Float64Array;
+} => {
+  const sampleNumbers = (first: number, rows: number) => Float64Array.from({ length: rows }, (_, i) => first + i);
   if (header.format === "las") {
-    return { curves: lasCurveLayoutOf(header.header), columns: (rows) => [...rows.input] };
+    return { curves: lasCurveLayoutOf(header.header), columns: (input) => [...input], index: (_, curve) => curve(0) };
   }
   const curves = header.curves.map((curve) => ({ mnemonic: curve.mnemonic, unit: curve.unit, description: curve.description }));
   const depthIndex = plan.curves.depth?.index;
   if (depthIndex !== undefined) {
     const order = [depthIndex, ...curves.map((_, c) => c).filter((c) => c !== depthIndex)];
-    return { curves: order.map((c) => curves[c]), columns: (rows) => order.map((c) => rows.input[c]) };
+    return { curves: order.map((c) => curves[c]), columns: (input) => order.map((c) => input[c]), index: (_, curve) => curve(depthIndex) };
   }
   return {
     curves: [{ mnemonic: "INDEX", unit: "", description: "SAMPLE NUMBER" }, ...curves],
-    columns: (rows) => [Float64Array.from({ length: rows.log.length }, (_, i) => rows.first + i), ...rows.input],
+    columns: (input, first) => [sampleNumbers(first, input[0]?.length ?? 0), ...input],
+    index: (rows) => sampleNumbers(0, rows),
   };
 };
 
 /**
  * LAS 2.0: the input's header sections and curves kept, the computed curves appended with units and
  * descriptions, the QC bit mask curve documented in ~Other, the options used in ~Parameter, the same NULL.
- * A CSV input has no ~Well to keep: its STRT, STOP and STEP come from the first batch, which must then hold every row.
+ * A CSV input has no ~Well to keep: its STRT, STOP and STEP come from the whole file's index, given before the
+ * first batch (`wholeFile`).
  */
 const lasOutput = (header: WellHeader, plan: ConversionPlan, computed: NumberFormat): WellOutput => {
   const units = outputUnits(plan);
   const input = inputCurves(header, plan);
   let writer: LasTextWriter | undefined;
+  let wholeIndex: Float64Array | undefined;
   return {
+    needsWholeFile: header.format === "csv",
+    wholeFile(rows, curve) {
+      wholeIndex = input.index(rows, curve);
+    },
     batch(rows, text) {
-      const columns = [...input.columns(rows), ...computedColumns(rows)];
+      const columns = [...input.columns(rows.input, rows.first), ...computedColumns(rows)];
       if (writer === undefined) {
         const estimates: CurveMeta[] = derivedList(rows.derived).map(({ correlation }) => ({
           mnemonic: derivedCurveName(correlation.id),
@@ -184,7 +210,7 @@ const lasOutput = (header: WellHeader, plan: ConversionPlan, computed: NumberFor
         writer = createLasTextWriter({
           header: header.format === "las" ? header.header.sections : undefined,
           curves,
-          indexItems: header.format === "las" ? undefined : lasIndexItems({ ...curves[0], values: columns[0] }, String(plan.nullValue)),
+          indexItems: header.format === "las" ? undefined : lasIndexItems({ ...curves[0], values: wholeIndex ?? columns[0] }, String(plan.nullValue)),
           nullValue: plan.nullValue,
           parameters: optionItems(plan),
           otherLines: [...qcLegend(invalidatingMask(plan.computation.keepNegativePoisson)), ...caution],
@@ -217,6 +243,7 @@ const ndjsonOutput = (): WellOutput => {
     return bytes;
   };
   return {
+    ...noWholeFile,
     batch({ first, log, depth, derived }, text) {
       if (log.length === 0) return;
       const named: [string, Float64Array][] = [

@@ -42,8 +42,9 @@ const mergeSummary = (total: FlagSummary, part: FlagSummary): void => {
 /**
  * Converts a well file to CSV, LAS or NDJSON while it is still arriving: bytes are read, complete rows taken
  * from the reader, computed and written batch by batch, so a file of any length converts in bounded memory.
- * The one exception is LAS out of a CSV file, whose STRT and STOP must be known before the first line: its rows
- * are held until the end. Every problem with the request is thrown as a ProblemError; when it is thrown after the
+ * The one exception is LAS out of a CSV file, whose STRT, STOP and STEP must be known before the first line: its
+ * input columns are held until the end (8 bytes per value read), then converted and written batch by batch like
+ * the others. Every problem with the request is thrown as a ProblemError; when it is thrown after the
  * first text has been handed out, the caller can only cut the answer short. `done` receives the flag summary.
  */
 export async function* convertWellStream(source: AsyncIterable<Uint8Array>, task: WellStreamTask, done: (summary: FlagSummary) => void): AsyncGenerator<Buffer> {
@@ -53,7 +54,7 @@ export async function* convertWellStream(source: AsyncIterable<Uint8Array>, task
   const reader = new WellFileReader();
   const text = new AsciiText(1 << 20);
   const summary: FlagSummary = { count: 0, valid: 0, flags: {} };
-  let setup: { plan: ConversionPlan; output: WellOutput; holdAll: boolean; curveCount: number } | undefined;
+  let setup: { plan: ConversionPlan; output: WellOutput; curveCount: number } | undefined;
   let held: Float64Array[][] = [];
   let heldRows = 0;
   let written = 0;
@@ -62,7 +63,7 @@ export async function* convertWellStream(source: AsyncIterable<Uint8Array>, task
 
   const begin = (header: WellHeader) => {
     const plan = planConversion(header, options);
-    setup = { plan, output: createWellOutput(format, header, plan, query.digits), holdAll: format === "las" && header.format === "csv", curveCount: header.curves.length };
+    setup = { plan, output: createWellOutput(format, header, plan, query.digits), curveCount: header.curves.length };
   };
   const hold = (rows: Float64Array[]) => {
     const count = rows[0]?.length ?? 0;
@@ -73,15 +74,20 @@ export async function* convertWellStream(source: AsyncIterable<Uint8Array>, task
       throw new ProblemError("too-many-samples", `The file has more than ${task.maxSamples} samples, the most accepted in one request. Split the well.`);
     }
   };
-  /** The first `count` held rows (all when fewer), taken out of the held ones; views, not copies, where one piece holds them. */
+  /**
+   * The first `count` held rows (all when fewer), taken out of the held ones: only the pieces that hold them are
+   * joined (views, not copies, where one piece holds them all), so a whole file held is never copied at once.
+   */
   const takeHeld = (count: number): Float64Array[] => {
-    const joined = joinRows(held, heldRows);
     const taken = Math.min(count, heldRows);
-    const rows = joined.map((column) => column.subarray(0, taken));
+    let pieces = 0;
+    let rows = 0;
+    while (rows < taken) rows += held[pieces++][0].length;
+    const joined = joinRows(held.slice(0, pieces), rows);
     const rest = joined.map((column) => column.subarray(taken));
+    held = rest[0].length > 0 ? [rest, ...held.slice(pieces)] : held.slice(pieces);
     heldRows -= taken;
-    held = heldRows > 0 ? [rest] : [];
-    return rows;
+    return joined.map((column) => column.subarray(0, taken));
   };
   /** Converts and writes the next batch: `count` held rows, or all of them; an empty file still gets its header. */
   const convert = (count = heldRows): Buffer => {
@@ -112,7 +118,7 @@ export async function* convertWellStream(source: AsyncIterable<Uint8Array>, task
         begin(header);
       }
       hold(reader.takeRows());
-      while (!setup?.holdAll && heldRows >= BATCH_ROWS) {
+      while (setup?.output.needsWholeFile === false && heldRows >= BATCH_ROWS) {
         yield convert(BATCH_ROWS);
         // A body already buffered is read, and batches handed on, in promise callbacks alone, which never let the
         // event loop take other connections' requests: give it a turn after each batch.
@@ -123,7 +129,9 @@ export async function* convertWellStream(source: AsyncIterable<Uint8Array>, task
     // A file read to its end without error has its header (LAS ~A reached, CSV header line read).
     if (setup === undefined) begin(reader.header() as WellHeader);
     hold(file.table.columns);
-    if (setup?.holdAll) yield convert();
+    const { output } = setup as NonNullable<typeof setup>;
+    // A held curve joined whole on request (the index, for STRT, STOP and STEP); the rows go on in batches below.
+    if (output.needsWholeFile) output.wholeFile(heldRows, (c) => (heldRows === 0 ? new Float64Array(0) : joinRows(held.map((rows) => [rows[c]]), heldRows)[0]));
     while (heldRows > 0) {
       yield convert(BATCH_ROWS);
       await setImmediate();

@@ -81,7 +81,7 @@ describe("streamed answers of a file longer than one batch", () => {
     });
   });
 
-  it("LAS out of a CSV file (STRT and STOP need every row: held to the end): the index runs from the first depth to the last", async () => {
+  it("LAS out of a CSV file (STRT and STOP need every row: its input columns are held to the end): the index runs from the first depth to the last", async () => {
     const las = await post(CSV, "las");
     expect(las.statusCode).toBe(200);
     const document = parseLas(las.body);
@@ -119,9 +119,12 @@ describe("streamed answers of a file longer than one batch", () => {
     }
   });
 
-  it("the event loop gets a turn after every batch while a file already in memory converts, so other requests are not starved", async () => {
+  it.each([
+    ["CSV out of a LAS file", LAS, "csv"],
+    ["LAS out of a CSV file (converted batch by batch once every row is read)", CSV, "las"],
+  ])("the event loop gets a turn after every batch while a file already in memory converts, so other requests are not starved: %s", async (_, file, format) => {
     const app = await build();
-    const bytes = Buffer.from(LAS);
+    const bytes = Buffer.from(file);
     // Counts the event loop's iterations: a callback that schedules itself again runs once per iteration.
     let turns = 0;
     let ticker: NodeJS.Immediate;
@@ -131,7 +134,7 @@ describe("streamed answers of a file longer than one batch", () => {
     };
     ticker = setImmediate(tick);
     try {
-      const answer = await app.inject({ method: "POST", url: "/v1/logs?format=csv", payload: Readable.from([bytes]), headers: { "content-type": "text/plain" } });
+      const answer = await app.inject({ method: "POST", url: `/v1/logs?format=${format}`, payload: Readable.from([bytes]), headers: { "content-type": "text/plain" } });
       expect(answer.statusCode).toBe(200);
     } finally {
       clearImmediate(ticker);
