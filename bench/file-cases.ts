@@ -89,10 +89,7 @@ export const fileCases = async (base: string, well: SyntheticWell, folder: strin
  */
 export const memoryCase = async (samples: number, folder: string, input: "las" | "csv"): Promise<Row[]> => {
   const well = syntheticWell(samples, 29);
-  const source =
-    input === "las"
-      ? writeWellFile(join(folder, "marram-bank-7-long.las"), syntheticWellLas(well))
-      : writeWellFile(join(folder, "marram-bank-7-long.csv"), syntheticWellCsv(well));
+  const source = writeWellFile(join(folder, `marram-bank-7-long.${input}`), input === "las" ? syntheticWellLas(well) : syntheticWellCsv(well));
   const port = await freePort();
   const server = await start(
     "memory",

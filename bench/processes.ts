@@ -43,14 +43,17 @@ export const start = async (label: string, args: string[], env: Record<string, s
 
 const SETTLE_LIMIT_MS = 30_000;
 
+/** A full collection of this process's garbage, when node runs with --expose-gc (as npm run bench starts it). */
+export const collectGarbage = (): void => (globalThis as { gc?: () => void }).gc?.();
+
 /**
  * Waits until the service takes new work again: after a whole-well request its load shedding (event-loop delay
  * above its limit) refuses requests for a sampling interval or two, which would otherwise count against the next case.
  */
 export const settle = async (base: string): Promise<void> => {
   // The benchmark's own garbage (the last answer, parsed) is collected before the next timed request, so that
-  // the client's collector does not run inside the measurement (npm run bench starts node with --expose-gc).
-  (globalThis as { gc?: () => void }).gc?.();
+  // the client's collector does not run inside the measurement.
+  collectGarbage();
   for (let waited = 0; waited <= SETTLE_LIMIT_MS; waited += 250) {
     const response = await fetch(`${base}/v1/elastic?dtc=95&dts=170&rho=2.45`);
     await response.arrayBuffer();

@@ -12,7 +12,7 @@ import { request } from "undici";
 import { arrowCase } from "./arrow-case.js";
 import { fileCases, memoryCase } from "./file-cases.js";
 import { kernelCase } from "./kernel-case.js";
-import { cpuMilliseconds, freePort, root, settle, start, stop } from "./processes.js";
+import { collectGarbage, cpuMilliseconds, freePort, root, settle, start, stop } from "./processes.js";
 import { attempt, markdownTable, median, milliseconds, yesOrNo, type Row } from "./report.js";
 import { syntheticWell, type SyntheticWell } from "./synthetic-well.js";
 
@@ -50,7 +50,7 @@ const jsonCase = async (base: string, well: SyntheticWell, runs: number): Promis
     decodes.push(performance.now() - lastByte);
     if (response.statusCode !== 200) throw new Error(`POST ${samples} samples answered ${response.statusCode}: ${text.slice(0, 300)}`);
     const answer = JSON.parse(text);
-    (globalThis as { gc?: () => void }).gc?.();
+    collectGarbage();
     const f0 = performance.now();
     JSON.parse(body);
     JSON.stringify(answer);

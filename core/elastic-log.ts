@@ -76,12 +76,12 @@ const ESTIMATED_VS = flagBit("estimated_vs");
 const ESTIMATED_RHO = flagBit("estimated_rho");
 const OUTSIDE_CALIBRATION = flagBit("outside_calibration");
 
-/** A copy divided by `divisor` (the same quotients), or the column itself when there is nothing to divide. */
+/** A copy divided by `divisor`, or the column itself when there is nothing to divide. */
 const divided = (column: Float64Array, divisor: number): Float64Array => {
   if (divisor === 1) return column;
-  const result = new Float64Array(column.length);
-  for (let i = 0; i < column.length; i++) result[i] = column[i] / divisor;
-  return result;
+  const out = new Float64Array(column.length);
+  for (let i = 0; i < column.length; i++) out[i] = column[i] / divisor;
+  return out;
 };
 
 /**

@@ -39,16 +39,16 @@ export interface RowBatch {
 /** Writes a converted well batch by batch into `text`; the first batch's text begins with the header. */
 export interface WellOutput {
   /**
-   * Set when the header describes every row (LAS out of a CSV file: STRT, STOP and STEP come before the first data
-   * line); the caller then tells `wholeFile`, before the first batch, how many rows the file has and how to get an
+   * Present when the header describes every row (LAS out of a CSV file: STRT, STOP and STEP come before the first
+   * data line); the caller then tells it, before the first batch, how many rows the file has and how to get an
    * input curve's values over all of them (curve `c` of the file, as `RowBatch.input` orders them).
    */
-  needsWholeFile: boolean;
-  wholeFile(rows: number, curve: (c: number) => Float64Array): void;
+  wholeFile?(rows: number, curve: (c: number) => Float64Array): void;
   batch(rows: RowBatch, text: AsciiText): void;
 }
 
-const noWholeFile = { needsWholeFile: false, wholeFile: () => undefined } as const;
+/** Row numbers `first` … `first + rows − 1`. */
+const sampleNumbers = (first: number, rows: number): Float64Array => Float64Array.from({ length: rows }, (_, i) => first + i);
 
 /** Significant digits of computed values in CSV and LAS answers unless `digits=` says otherwise. */
 export const DEFAULT_DIGITS = 8;
@@ -86,7 +86,6 @@ const csvOutput = (header: WellHeader, plan: ConversionPlan, computed: NumberFor
   const units = outputUnits(plan);
   let formats: NumberFormat[] | undefined;
   return {
-    ...noWholeFile,
     batch(rows, text) {
       const columns = [...rows.input, ...computedColumns(rows)];
       if (formats === undefined) {
@@ -157,7 +156,6 @@ const inputCurves = (
   /** The first (index) curve's values over a whole file of `rows` rows, from the file's curves. */
   index: (rows: number, curve: (c: number) => Float64Array) => Float64Array;
 } => {
-  const sampleNumbers = (first: number, rows: number) => Float64Array.from({ length: rows }, (_, i) => first + i);
   if (header.format === "las") {
     return { curves: lasCurveLayoutOf(header.header), columns: (input) => [...input], index: (_, curve) => curve(0) };
   }
@@ -186,10 +184,11 @@ const lasOutput = (header: WellHeader, plan: ConversionPlan, computed: NumberFor
   let writer: LasTextWriter | undefined;
   let wholeIndex: Float64Array | undefined;
   return {
-    needsWholeFile: header.format === "csv",
-    wholeFile(rows, curve) {
-      wholeIndex = input.index(rows, curve);
-    },
+    ...(header.format === "csv" && {
+      wholeFile(rows: number, curve: (c: number) => Float64Array) {
+        wholeIndex = input.index(rows, curve);
+      },
+    }),
     batch(rows, text) {
       const columns = [...input.columns(rows.input, rows.first), ...computedColumns(rows)];
       if (writer === undefined) {
@@ -243,11 +242,10 @@ const ndjsonOutput = (): WellOutput => {
     return bytes;
   };
   return {
-    ...noWholeFile,
     batch({ first, log, depth, derived }, text) {
       if (log.length === 0) return;
       const named: [string, Float64Array][] = [
-        ["index", Float64Array.from({ length: log.length }, (_, i) => first + i)],
+        ["index", sampleNumbers(first, log.length)],
         ...(depth === undefined ? [] : [["depth", depth] as [string, Float64Array]]),
         ...OUTPUT_PROPERTIES.map((property): [string, Float64Array] => [property.key, property.column(log)]),
         ...derivedList(derived).map((column): [string, Float64Array] => [column.correlation.id, column.values]),

@@ -118,7 +118,7 @@ export async function* convertWellStream(source: AsyncIterable<Uint8Array>, task
         begin(header);
       }
       hold(reader.takeRows());
-      while (setup?.output.needsWholeFile === false && heldRows >= BATCH_ROWS) {
+      while (setup !== undefined && setup.output.wholeFile === undefined && heldRows >= BATCH_ROWS) {
         yield convert(BATCH_ROWS);
         // A body already buffered is read, and batches handed on, in promise callbacks alone, which never let the
         // event loop take other connections' requests: give it a turn after each batch.
@@ -131,7 +131,7 @@ export async function* convertWellStream(source: AsyncIterable<Uint8Array>, task
     hold(file.table.columns);
     const { output } = setup as NonNullable<typeof setup>;
     // A held curve joined whole on request (the index, for STRT, STOP and STEP); the rows go on in batches below.
-    if (output.needsWholeFile) output.wholeFile(heldRows, (c) => (heldRows === 0 ? new Float64Array(0) : joinRows(held.map((rows) => [rows[c]]), heldRows)[0]));
+    output.wholeFile?.(heldRows, (c) => (heldRows === 0 ? new Float64Array(0) : joinRows(held.map((rows) => [rows[c]]), heldRows)[0]));
     while (heldRows > 0) {
       yield convert(BATCH_ROWS);
       await setImmediate();
