@@ -5,6 +5,8 @@
  * on random doubles; the fast paths cover the values logs hold, anything else goes through the counterpart.
  */
 
+import { MAX_SHORTEST_BYTES, writeShortestDecimal } from "./shortest-decimal.js";
+
 /** Significant digits that every double carries through a decimal round trip (IEEE 754 binary64: 15, C's DBL_DIG). */
 export const MAX_EXACT_DIGITS = 15;
 
@@ -74,6 +76,12 @@ export class AsciiText {
     this.length = at;
   }
 
+  /** Appends the text of `String(value)` (writeShortestDecimal). */
+  shortest(value: number): void {
+    this.ensure(MAX_SHORTEST_BYTES);
+    this.length = writeShortestDecimal(this.buffer, this.length, value);
+  }
+
   /** Appends bytes as they are. */
   append(bytes: Uint8Array): void {
     this.ensure(bytes.length);
@@ -119,7 +127,8 @@ export class AsciiText {
 
 /**
  * `value` as the shortest text that reads back as the same double: the text of `String(value)`.
- * Fast when the value is a decimal of at most 15 significant digits between 1e-6 and 1e15 (what a log holds).
+ * A decimal of at most 15 significant digits between 1e-6 and 1e15 (what a log holds) is found by trying
+ * 0, 1, 2… decimals; any other value is written by writeShortestDecimal.
  */
 export const writeShortest = (text: AsciiText, value: number): void => {
   const magnitude = Math.abs(value);
@@ -134,7 +143,7 @@ export const writeShortest = (text: AsciiText, value: number): void => {
       }
     }
   }
-  text.ascii(String(value));
+  text.shortest(value);
 };
 
 /** A value so near a rounding tie that the scaled product's own rounding could decide it: left to toPrecision. */
@@ -213,17 +222,41 @@ export const writeNumber = (text: AsciiText, value: number, format: NumberFormat
 
 const COMMA = 44;
 
+const OPEN_BRACKET = 91;
+const CLOSE_BRACKET = 93;
+
 /**
- * A column as JSON text: JSON.stringify of a plain array writes NaN as null and every number in its shortest exact form.
- * The array is built by push, which keeps it packed: V8 writes a packed array of doubles on its fast path, and builds
- * it about twice as fast as Array.from does from a typed array (an array made at full length is holey, and written
- * about half as fast).
+ * A column as the bytes of a JSON array: each finite value as Number::toString writes it (writeShortestDecimal),
+ * NaN and ±Infinity as null, which are the bytes JSON.stringify writes for the column's values. When `starts` is
+ * given (length + 1 entries), value i's text is recorded as beginning at `starts[i]`.
  */
-export const columnJson = (column: Float64Array): string => {
-  const values: number[] = [];
-  for (let i = 0; i < column.length; i++) values.push(column[i]);
-  return JSON.stringify(values);
+const writeColumnJson = (column: Float64Array, starts: Uint32Array | undefined): Uint8Array => {
+  // Room for the longest text of every value; pages never written are never touched.
+  const out = new Uint8Array(column.length * (MAX_SHORTEST_BYTES + 1) + 2);
+  let at = 0;
+  out[at++] = OPEN_BRACKET;
+  for (let i = 0; i < column.length; i++) {
+    if (i > 0) out[at++] = COMMA;
+    if (starts !== undefined) starts[i] = at;
+    const value = column[i];
+    if (value - value === 0) at = writeShortestDecimal(out, at, value);
+    else {
+      out[at++] = 110; // null
+      out[at++] = 117;
+      out[at++] = 108;
+      out[at++] = 108;
+    }
+  }
+  if (starts !== undefined) starts[column.length] = at + 1;
+  out[at++] = CLOSE_BRACKET;
+  return out.subarray(0, at);
 };
+
+/** A column as the bytes of a JSON array of numbers and nulls: what JSON.stringify writes for its values. */
+export const columnJsonBytes = (column: Float64Array): Uint8Array => writeColumnJson(column, undefined);
+
+/** A column as JSON text (columnJsonBytes as a string). */
+export const columnJson = (column: Float64Array): string => asciiString(columnJsonBytes(column));
 
 /** The texts of a column of numbers, one after the other: value i's text is `bytes[starts[i] .. starts[i + 1] - 1)`. */
 export interface NumberTexts {
@@ -234,18 +267,12 @@ export interface NumberTexts {
 
 /**
  * The shortest texts of a column of numbers, as JSON.stringify writes them: `String(value)` (ECMA-262
- * Number::toString) for a finite value, `null` for NaN and ±Infinity. JSON.stringify of a packed array writes a
- * full-precision double in about a third of the time `String` takes, which makes and discards a string for each;
- * a writer then copies the texts out in whatever order it needs (row by row, say).
+ * Number::toString) for a finite value, `null` for NaN and ±Infinity, all written at once; a writer then copies
+ * the texts out in whatever order it needs (row by row, say).
  */
 export const numberTexts = (values: Float64Array): NumberTexts => {
-  const bytes = UTF8.encode(columnJson(values));
   const starts = new Uint32Array(values.length + 1);
-  let k = 0;
-  starts[k++] = 1;
-  // Numbers and null hold no comma: each comma ends one value's text; the closing bracket ends the last.
-  for (let at = 1; at < bytes.length - 1; at++) if (bytes[at] === COMMA) starts[k++] = at + 1;
-  starts[values.length] = bytes.length;
+  const bytes = writeColumnJson(values, starts);
   return { bytes, starts };
 };
 

@@ -2,7 +2,7 @@ import { readlinkSync } from "node:fs";
 import { setPriority } from "node:os";
 import { Piscina } from "piscina";
 import { isProblemError, type ProblemSlug, type ProblemFieldError } from "../problems.js";
-import { columnJson } from "../../core/index.js";
+import { columnJsonBytes } from "../../core/index.js";
 import { prepareColumnsAnswer, type ColumnsBody, type PreparedAnswer } from "../elastic-columns.js";
 import { convertLogs, type LogsResult, type LogsTask } from "../logs-task.js";
 
@@ -46,14 +46,9 @@ export function prepare({ body, maxSamples, format }: { body: ColumnsBody; maxSa
   }
 }
 
-/** Task `serialize`: columns as JSON text, ASCII bytes (numbers, commas, brackets and null only). */
+/** Task `serialize`: columns as JSON text, ASCII bytes (numbers, commas, brackets and null only), each in a buffer of its own. */
 export function serialize({ columns }: { columns: Float64Array[] }) {
-  // Latin-1 is a plain copy of the text's bytes (all ASCII); a short one lies in Node's shared pool, which must not
-  // be handed over, so it is copied out.
-  const texts = columns.map((column) => {
-    const text = Buffer.from(columnJson(column), "latin1");
-    return text.byteLength === text.buffer.byteLength ? text : new Uint8Array(text);
-  });
+  const texts = columns.map(columnJsonBytes);
   return transferring({ texts }, texts.map((text) => text.buffer));
 }
 
