@@ -227,17 +227,15 @@ const CLOSE_BRACKET = 93;
 
 /**
  * A column as the bytes of a JSON array: each finite value as Number::toString writes it (writeShortestDecimal),
- * NaN and ±Infinity as null, which are the bytes JSON.stringify writes for the column's values. When `starts` is
- * given (length + 1 entries), value i's text is recorded as beginning at `starts[i]`.
+ * NaN and ±Infinity as null, which are the bytes JSON.stringify writes for the column's values.
  */
-const writeColumnJson = (column: Float64Array, starts: Uint32Array | undefined): Uint8Array => {
+export const columnJsonBytes = (column: Float64Array): Uint8Array => {
   // Room for the longest text of every value; pages never written are never touched.
   const out = new Uint8Array(column.length * (MAX_SHORTEST_BYTES + 1) + 2);
   let at = 0;
   out[at++] = OPEN_BRACKET;
   for (let i = 0; i < column.length; i++) {
     if (i > 0) out[at++] = COMMA;
-    if (starts !== undefined) starts[i] = at;
     const value = column[i];
     if (value - value === 0) at = writeShortestDecimal(out, at, value);
     else {
@@ -247,46 +245,21 @@ const writeColumnJson = (column: Float64Array, starts: Uint32Array | undefined):
       out[at++] = 108;
     }
   }
-  if (starts !== undefined) starts[column.length] = at + 1;
   out[at++] = CLOSE_BRACKET;
   return out.subarray(0, at);
 };
 
-/** A column as the bytes of a JSON array of numbers and nulls: what JSON.stringify writes for its values. */
-export const columnJsonBytes = (column: Float64Array): Uint8Array => writeColumnJson(column, undefined);
-
 /** A column as JSON text (columnJsonBytes as a string). */
 export const columnJson = (column: Float64Array): string => asciiString(columnJsonBytes(column));
 
-/** The texts of a column of numbers, one after the other: value i's text is `bytes[starts[i] .. starts[i + 1] - 1)`. */
-export interface NumberTexts {
-  bytes: Uint8Array;
-  /** values.length + 1 entries; between two texts lies one separator byte. */
-  starts: Uint32Array;
-}
-
 /**
- * The shortest texts of a column of numbers, as JSON.stringify writes them: `String(value)` (ECMA-262
- * Number::toString) for a finite value, `null` for NaN and ±Infinity, all written at once; a writer then copies
- * the texts out in whatever order it needs (row by row, say).
+ * Writes the finite `value` in `format`. `fullDouble` (from `fullDoublesOf`) says its column holds full-precision
+ * doubles, which go straight to writeShortestDecimal instead of first trying writeShortest's short decimals (the
+ * same text either way: the choice is one of speed only).
  */
-export const numberTexts = (values: Float64Array): NumberTexts => {
-  const starts = new Uint32Array(values.length + 1);
-  const bytes = writeColumnJson(values, starts);
-  return { bytes, starts };
-};
-
-/** Appends the text of value `index` of `texts`. */
-export const writeFromTexts = (text: AsciiText, texts: NumberTexts, index: number): void =>
-  text.copy(texts.bytes, texts.starts[index], texts.starts[index + 1] - 1);
-
-/**
- * Writes the finite value `index` of a column in `format`: from the column's texts when `shortestTextsOf` gave it
- * some, value by value otherwise (the same text either way).
- */
-export const writeColumnValue = (text: AsciiText, value: number, format: NumberFormat, texts: NumberTexts | undefined, index: number): void => {
-  if (texts === undefined) writeNumber(text, value, format);
-  else writeFromTexts(text, texts, index);
+export const writeColumnValue = (text: AsciiText, value: number, format: NumberFormat, fullDouble: boolean): void => {
+  if (fullDouble) text.shortest(value);
+  else writeNumber(text, value, format);
 };
 
 /** Finite values looked at to judge a column: a decimal as logs hold it has at most this many characters. */
@@ -304,11 +277,6 @@ const holdsFullDoubles = (column: Float64Array): boolean => {
   return false;
 };
 
-/**
- * For each column written in the shortest form whose values are full-precision doubles, their texts at once
- * (numberTexts, three times faster than String per value); undefined for the other columns, whose values
- * writeNumber writes faster one by one (a log's decimals take writeShortest's fast path). The text is the same
- * either way: the choice is one of speed only.
- */
-export const shortestTextsOf = (columns: readonly Float64Array[], formats: readonly NumberFormat[]): (NumberTexts | undefined)[] =>
-  columns.map((column, c) => (formats[c].kind === "shortest" && holdsFullDoubles(column) ? numberTexts(column) : undefined));
+/** For each column, true when it is written in the shortest form and its values are full-precision doubles (see writeColumnValue). */
+export const fullDoublesOf = (columns: readonly Float64Array[], formats: readonly NumberFormat[]): boolean[] =>
+  columns.map((column, c) => formats[c].kind === "shortest" && holdsFullDoubles(column));

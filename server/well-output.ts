@@ -4,8 +4,8 @@ import {
   csvHeaderRecord,
   writeCsvRecords,
   SHORTEST,
-  numberTexts,
-  writeFromTexts,
+  fullDoublesOf,
+  writeColumnValue,
   type NumberFormat,
   FLAGS,
   flagCodesOf,
@@ -226,10 +226,11 @@ const UTF8 = new TextEncoder();
 /**
  * One JSON object per sample and line (NDJSON, application/x-ndjson) for line-oriented pipelines: the row
  * index, the depth when there is one, every property (null where invalid), each derived estimate by its id,
- * and the sample's flag codes. Numbers are written as JSON.stringify writes them (ECMA-262 Number::toString):
- * each column of a batch is written as text at once (numberTexts), then the rows are put together from those
- * texts. Writing number by number costs about twice as much.
+ * and the sample's flag codes. Numbers are written as JSON.stringify writes them (ECMA-262 Number::toString),
+ * null where not finite.
  */
+const NULL_BYTES = UTF8.encode("null");
+
 const ndjsonOutput = (): WellOutput => {
   // The text that closes a row, per flag mask: a well holds few distinct masks.
   const rowEnds = new Map<number, Uint8Array>();
@@ -251,12 +252,15 @@ const ndjsonOutput = (): WellOutput => {
         ...derivedList(derived).map((column): [string, Float64Array] => [column.correlation.id, column.values]),
       ];
       const keys = named.map(([key], c) => UTF8.encode(`${c === 0 ? "{" : ","}${JSON.stringify(key)}:`));
-      const texts = named.map(([, values]) => numberTexts(values));
+      const columns = named.map(([, values]) => values);
+      const fullDoubles = fullDoublesOf(columns, columns.map(() => SHORTEST));
       // Short pieces are copied byte by byte (AsciiText.copy): cheaper than a native copy call for each.
       for (let i = 0; i < log.length; i++) {
         for (let c = 0; c < keys.length; c++) {
           text.copy(keys[c], 0, keys[c].length);
-          writeFromTexts(text, texts[c], i);
+          const value = columns[c][i];
+          if (Number.isFinite(value)) writeColumnValue(text, value, SHORTEST, fullDoubles[c]);
+          else text.copy(NULL_BYTES, 0, NULL_BYTES.length);
         }
         const closing = rowEnd(log.flags[i]);
         text.copy(closing, 0, closing.length);

@@ -1,4 +1,4 @@
-import { AsciiText, asciiString, shortestTextsOf, SHORTEST, writeColumnValue, type NumberFormat, type NumberTexts } from "../ascii-numbers.js";
+import { AsciiText, asciiString, fullDoublesOf, SHORTEST, writeColumnValue, type NumberFormat } from "../ascii-numbers.js";
 
 export interface CsvTable {
   curves: readonly { name: string; unit: string }[];
@@ -30,13 +30,13 @@ const writeRecord = (
   columns: readonly Float64Array[],
   formats: readonly NumberFormat[],
   row: number,
-  texts: readonly (NumberTexts | undefined)[],
+  fullDoubles: readonly boolean[],
 ): void => {
   const start = text.length;
   for (let column = 0; column < columns.length; column++) {
     if (column > 0) text.byte(COMMA);
     const value = columns[column][row];
-    if (Number.isFinite(value)) writeColumnValue(text, value, formats[column], texts[column], row);
+    if (Number.isFinite(value)) writeColumnValue(text, value, formats[column], fullDoubles[column]);
     else if (!Number.isNaN(value)) text.ascii(String(value));
   }
   if (text.length === start) {
@@ -60,8 +60,8 @@ const checkColumns = (columns: readonly Float64Array[], formats: readonly Number
  */
 export const writeCsvRecords = (text: AsciiText, columns: readonly Float64Array[], formats: readonly NumberFormat[]): void => {
   const rows = checkColumns(columns, formats);
-  const texts = shortestTextsOf(columns, formats);
-  for (let row = 0; row < rows; row++) writeRecord(text, columns, formats, row, texts);
+  const fullDoubles = fullDoublesOf(columns, formats);
+  for (let row = 0; row < rows; row++) writeRecord(text, columns, formats, row, fullDoubles);
 };
 
 /**
@@ -78,9 +78,9 @@ export function* writeCsv(table: CsvTable): Generator<string> {
   const rows = checkColumns(columns, formats);
   let header = csvHeaderRecord(curves);
   const text = new AsciiText();
-  const texts = shortestTextsOf(columns, formats);
+  const fullDoubles = fullDoublesOf(columns, formats);
   for (let row = 0; row < rows; row++) {
-    writeRecord(text, columns, formats, row, texts);
+    writeRecord(text, columns, formats, row, fullDoubles);
     if (header.length + text.length >= CHUNK_CHARACTERS) {
       yield header + asciiString(text.take());
       header = "";

@@ -1,7 +1,7 @@
 import type { CurveInfo } from "../well-table.js";
 import { isItemSection, type LasDocument, type LasSection } from "./las-document.js";
 import { writeLasHeader, type LasItemToWrite } from "./las-header-writer.js";
-import { AsciiText, asciiString, shortestTextsOf, writeColumnValue, type NumberTexts } from "../ascii-numbers.js";
+import { AsciiText, asciiString, fullDoublesOf, writeColumnValue } from "../ascii-numbers.js";
 import { formatLasNumber, SHORTEST, type LasNumberFormat } from "./las-number-format.js";
 
 export interface LasCurveToWrite {
@@ -112,9 +112,9 @@ export const createLasTextWriter = (layout: LasLayout): LasTextWriter => {
     });
     return length;
   };
-  /** Value `index` of curve `c`, from the curve's texts when the batch has them (see `shortestTextsOf`). */
-  const write = (text: AsciiText, value: number, c: number, texts?: NumberTexts, index = 0): void => {
-    if (Number.isFinite(value)) writeColumnValue(text, value, formats[c], texts, index);
+  /** A value of curve `c`; `fullDouble` as `fullDoublesOf` judged the curve's batch. */
+  const write = (text: AsciiText, value: number, c: number, fullDouble = false): void => {
+    if (Number.isFinite(value)) writeColumnValue(text, value, formats[c], fullDouble);
     else text.ascii(nullText);
   };
   const begin = (sample: readonly Float64Array[]): string => {
@@ -136,12 +136,12 @@ export const createLasTextWriter = (layout: LasLayout): LasTextWriter => {
   const rows = (text: AsciiText, columns: readonly Float64Array[], from = 0, to?: number): void => {
     if (widths === undefined) throw new Error("begin() comes before the data lines");
     const count = Math.min(checked(columns), to ?? Infinity);
-    const texts = shortestTextsOf(columns.map((column) => column.subarray(from, Math.max(from, count))), formats);
+    const fullDoubles = fullDoublesOf(columns.map((column) => column.subarray(from, Math.max(from, count))), formats);
     for (let i = from; i < count; i++) {
       for (let c = 0; c < columns.length; c++) {
         text.byte(SPACE);
         const start = text.length;
-        write(text, columns[c][i], c, texts[c], i - from);
+        write(text, columns[c][i], c, fullDoubles[c]);
         text.padFrom(start, widths[c] - (text.length - start));
       }
       text.byte(13);

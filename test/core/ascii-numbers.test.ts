@@ -5,7 +5,7 @@
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { AsciiText, numberTexts, writeFixed, writeShortest, writeSignificant } from "../../core/ascii-numbers.js";
+import { AsciiText, fullDoublesOf, SHORTEST, writeColumnValue, writeFixed, writeShortest, writeSignificant } from "../../core/ascii-numbers.js";
 
 const written = (write: (text: AsciiText) => void): string => {
   const text = new AsciiText(4);
@@ -36,20 +36,24 @@ describe("writeShortest (ECMA-262 Number::toString)", () => {
   });
 });
 
-describe("numberTexts (a column's texts as JSON.stringify writes them)", () => {
-  it("gives value i the text String(value), or null for NaN and ±Infinity (ECMA-262 SerializeJSONProperty)", () => {
-    const value = fc.oneof(anyDouble, logDecimal, fc.constantFrom(NaN, Infinity, -Infinity, -0, 0, 5e-324));
+describe("writeColumnValue in the shortest form (ECMA-262 Number::toString), whichever writer fullDoublesOf picks", () => {
+  it("gives every finite value the text String(value), for columns of log decimals, of full doubles and of both", () => {
+    const value = fc.oneof(anyDouble, logDecimal, fc.constantFrom(-0, 0, 5e-324));
     fc.assert(
       fc.property(fc.array(value, { maxLength: 40 }), (values) => {
-        const { bytes, starts } = numberTexts(Float64Array.from(values));
-        expect(starts).toHaveLength(values.length + 1);
-        values.forEach((v, i) => {
-          const text = Buffer.from(bytes.subarray(starts[i], starts[i + 1] - 1)).toString("latin1");
-          expect(text).toBe(Number.isFinite(v) ? String(v) : "null");
-        });
+        const column = Float64Array.from(values);
+        const [judged] = fullDoublesOf([column], [SHORTEST]);
+        for (const fullDouble of [judged, true, false]) {
+          for (const v of values) expect(written((text) => writeColumnValue(text, v, SHORTEST, fullDouble))).toBe(String(v));
+        }
       }),
       { numRuns: 3000 },
     );
+  });
+
+  it("judges a column of computed values as full doubles and a column of a log's decimals as not", () => {
+    expect(fullDoublesOf([Float64Array.from([14.704529396610424, 0.322399427257403]), Float64Array.from([2150.1524, 104.24, 2.481])], [SHORTEST, SHORTEST])).toEqual([true, false]);
+    expect(fullDoublesOf([Float64Array.from([14.704529396610424])], [{ kind: "significant", digits: 8 }])).toEqual([false]);
   });
 });
 
