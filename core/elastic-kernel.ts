@@ -30,6 +30,7 @@ const VP_VS_HIGH = flagBit("vp_vs_high");
 const RHO_RANGE = flagBit("density_out_of_range");
 const VP_RANGE = flagBit("vp_out_of_range");
 const VS_RANGE = flagBit("vs_out_of_range");
+const NOT_FINITE = flagBit("not_finite");
 
 const outside = (value: number, min: number, max: number): boolean => value < min || value > max;
 
@@ -52,7 +53,7 @@ const SI: UnitSizes = { modulus: 1, impedance: 1, modulusDensity: 1 };
  *   ν = (Vp² − 2Vs²) / (2(Vp² − Vs²)),  E = G(3Vp² − 4Vs²) / (Vp² − Vs²) = 2G(1 + ν).
  * Each value is computed in SI and divided by its unit's size as it is stored: the same quotient as dividing a
  * stored SI column afterwards, without a second pass over a whole well's columns (sizes of 1 give SI).
- * Adds the ratio and range flags to `flags`; a sample whose mask meets `invalidMask` gets NaN.
+ * Adds the ratio and range flags to `flags`, and `not_finite` where finite inputs overflow a property; a sample whose mask meets `invalidMask` gets NaN.
  * NaN inputs (already flagged by screening) give NaN outputs.
  */
 export const computeElasticColumns = (
@@ -95,6 +96,19 @@ export const computeElasticColumns = (
     else if (ratio <= SQRT_FOUR_THIRDS) mask |= NEGATIVE_BULK;
     else if (ratio < Math.SQRT2) mask |= BELOW_SQRT2;
     if (ratio > vpVsMax) mask |= VP_VS_HIGH;
+    const p2 = p * p;
+    const s2 = s * s;
+    const g = d * s2;
+    const m = d * p2;
+    const lambda = m - 2 * g;
+    const e = (g * (3 * p2 - 4 * s2)) / (p2 - s2);
+    const nu = (p2 - 2 * s2) / (2 * (p2 - s2));
+    // Finite inputs beyond a double's range (rho 1e300 g/cm3 overflows ρVs²; Vp and Vs of 1e-200 m/s underflow
+    // to 0/0) would give infinite or NaN properties. With Vs < Vp, |λ|, |K| and G are below M, |λρ| and μρ below
+    // Mρ, and ρVs below ρVp: E, ν, Vp/Vs, Mρ and ρVp finite means every property is (NaN fails each `<`).
+    if ((mask & invalidMask) === 0 && !Number.isNaN(ratio + d) && !(Math.abs(e) < Infinity && Math.abs(nu) < Infinity && ratio < Infinity && m * d < Infinity && d * p < Infinity)) {
+      mask |= NOT_FINITE;
+    }
     flags[i] = mask;
     if ((mask & invalidMask) !== 0 || Number.isNaN(ratio + d)) {
       youngsModulusPascals[i] = NaN;
@@ -111,17 +125,11 @@ export const computeElasticColumns = (
       muRho[i] = NaN;
       continue;
     }
-    const p2 = p * p;
-    const s2 = s * s;
-    const g = d * s2;
-    const m = d * p2;
-    const lambda = m - 2 * g;
-    const e = (g * (3 * p2 - 4 * s2)) / (p2 - s2);
     shearModulus[i] = g / modulus;
     pWaveModulus[i] = m / modulus;
     lameLambda[i] = lambda / modulus;
     bulkModulus[i] = (m - (4 / 3) * g) / modulus;
-    poissonsRatio[i] = (p2 - 2 * s2) / (2 * (p2 - s2));
+    poissonsRatio[i] = nu;
     youngsModulusPascals[i] = e;
     youngsModulus[i] = e / modulus;
     vpVsRatio[i] = ratio;

@@ -74,6 +74,7 @@ export interface ElasticLog {
 
 const ESTIMATED_VS = flagBit("estimated_vs");
 const ESTIMATED_RHO = flagBit("estimated_rho");
+const NON_POSITIVE = flagBit("non_positive");
 const OUTSIDE_CALIBRATION = flagBit("outside_calibration");
 
 /** A copy divided by `divisor`, or the column itself when there is nothing to divide. */
@@ -103,6 +104,12 @@ const fillInput = (
   for (let i = 0; i < si.length; i++) {
     if (result.filled[i] === 0) continue;
     own[i] = estimatedBit | (prediction.outsideCalibration[i] === 1 ? OUTSIDE_CALIBRATION : 0);
+    // A linear fit taken below its range predicts zero or less (Castagna's mudrock line below Vp ≈ 1360 m/s):
+    // no rock has that, so the filled sample is invalid, and the prediction is not passed on as a velocity.
+    if (!(result.values[i] > 0)) {
+      own[i] |= NON_POSITIVE;
+      result.values[i] = NaN;
+    }
   }
   return { si: result.values, count: result.count };
 };

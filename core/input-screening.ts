@@ -34,13 +34,15 @@ const screenBit = (value: number, nullValue: number): number => {
 
 // Two plain loops rather than one loop with a conversion callback: the callback made the hot loop
 // polymorphic and several times slower on whole wells.
+// A finite input whose SI value is not (1e300 g/cm3, a slowness of 1e-320) is flagged not_finite, like an infinite one.
 const screenScaled = (raw: Float64Array, nullValue: number, flags: Uint32Array, factor: number): Float64Array => {
   const si = new Float64Array(raw.length);
   for (let i = 0; i < raw.length; i++) {
     const bit = screenBit(raw[i], nullValue);
-    if (bit === 0) si[i] = raw[i] * factor;
+    const value = raw[i] * factor;
+    if (bit === 0 && value !== Infinity) si[i] = value;
     else {
-      flags[i] |= bit;
+      flags[i] |= bit === 0 ? NOT_FINITE : bit;
       si[i] = NaN;
     }
   }
@@ -51,9 +53,10 @@ const screenInverted = (raw: Float64Array, nullValue: number, flags: Uint32Array
   const si = new Float64Array(raw.length);
   for (let i = 0; i < raw.length; i++) {
     const bit = screenBit(raw[i], nullValue);
-    if (bit === 0) si[i] = constant / raw[i];
+    const value = constant / raw[i];
+    if (bit === 0 && value !== Infinity) si[i] = value;
     else {
-      flags[i] |= bit;
+      flags[i] |= bit === 0 ? NOT_FINITE : bit;
       si[i] = NaN;
     }
   }

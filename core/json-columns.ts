@@ -7,7 +7,12 @@
  * The reader is a fast path with a way out: it declines (answers undefined) whenever the text is not valid JSON,
  * or holds a key `__proto__` or `constructor`, or nests deeper than the stack allows. The caller then uses the
  * standard parser, which words the error or refuses the key. Whatever the reader does answer equals JSON.parse.
+ *
+ * A name given twice in one object is refused: RFC 8259 (section 4) leaves duplicates to each parser, and
+ * JSON.parse would keep the last value without notice. Valid text with duplicates throws `InputIssues` naming
+ * each path; `duplicateNameIssues` finds the same in text the reader declined and the standard parser accepted.
  */
+import { InputIssues, MAX_LISTED_ISSUES, type InputIssue } from "./input-issues.js";
 
 const QUOTE = 0x22;
 const BACKSLASH = 0x5c;
@@ -37,8 +42,34 @@ const DECLINE = new Decline();
 const LATIN1 = new TextDecoder("latin1");
 const UTF8 = new TextDecoder("utf-8");
 
+/** Steps of a path kept at each end when it is longer than twice this (deep nesting). */
+const PATH_END_STEPS = 8;
+
+/** A path as the request's fields are named: `units.slowness`, `zones[2].top`; other names as JSON strings. */
+const pathText = (path: readonly (string | number)[]): string => {
+  const step = (part: string | number, i: number) => {
+    if (typeof part === "number") return `[${part}]`;
+    const name = /^[A-Za-z_][A-Za-z0-9_]*$/.test(part) ? part : JSON.stringify(part);
+    return i === 0 ? name : `.${name}`;
+  };
+  if (path.length <= 2 * PATH_END_STEPS) return path.map(step).join("");
+  const head = path.slice(0, PATH_END_STEPS).map(step).join("");
+  const tail = path.slice(-PATH_END_STEPS).map((part, i) => step(part, i + 1)).join("");
+  return `${head}…(${path.length - 2 * PATH_END_STEPS} levels)…${tail}`;
+};
+
+/** The issue of a name given twice, once per object and name, up to MAX_LISTED_ISSUES. */
+const addDuplicate = (issues: InputIssue[], path: readonly (string | number)[], name: string): void => {
+  const field = pathText([...path, name]);
+  if (issues.length >= MAX_LISTED_ISSUES || issues.some((issue) => issue.field === field)) return;
+  issues.push({ field, message: `the name ${JSON.stringify(name)} is given more than once in one object; send each name once` });
+};
+
 class Reader {
   pos = 0;
+  /** Key or index of each open object or array, for the path of a duplicate name. */
+  readonly trail: (string | number)[] = [];
+  readonly duplicates: InputIssue[] = [];
 
   constructor(
     private readonly bytes: Uint8Array,
@@ -104,6 +135,9 @@ class Reader {
       const key = this.string();
       // JSON.parse makes these own data properties; an assignment would not. The standard parser refuses them.
       if (key === "__proto__" || key === "constructor") throw DECLINE;
+      // One check per member, none per array element: a million-sample column pays nothing.
+      if (Object.hasOwn(result, key)) addDuplicate(this.duplicates, this.trail.slice(0, depth), key);
+      this.trail[depth] = key;
       this.skipSpace();
       this.expect(COLON);
       this.skipSpace();
@@ -125,6 +159,7 @@ class Reader {
       return result;
     }
     for (;;) {
+      this.trail[depth] = result.length;
       result.push(this.value(depth + 1));
       this.skipSpace();
       const next = this.bytes[this.pos++];
@@ -260,17 +295,67 @@ class Reader {
 
 /**
  * `JSON.parse` of the UTF-8 text in `bytes`, with the arrays of numbers and nulls under `columnKeys` of the
- * top-level object as Float64Arrays (NaN for null); undefined when the reader declines (see above).
+ * top-level object as Float64Arrays (NaN for null); undefined when the reader declines (see above). Throws
+ * `InputIssues` when the text is valid JSON with a name given twice in one object.
  */
 export const readJsonColumns = (bytes: Uint8Array, columnKeys: ReadonlySet<string>): unknown => {
   const reader = new Reader(bytes, columnKeys);
+  let value: unknown;
   try {
-    const value = reader.value(0);
+    value = reader.value(0);
     reader.skipSpace();
-    return reader.pos === bytes.length ? value : undefined;
   } catch (error) {
     // Declined, or the stack ran out on deep nesting (RangeError): the standard parser takes over.
     if (error instanceof Decline || error instanceof RangeError) return undefined;
     throw error;
   }
+  if (reader.pos !== bytes.length) return undefined;
+  // Only once the whole text is known valid: a syntax error is reported before a duplicate, on either path.
+  if (reader.duplicates.length > 0) throw new InputIssues(reader.duplicates);
+  return value;
+};
+
+/**
+ * Names given twice in one object of `text`, which must be valid JSON (JSON.parse has accepted it), as the issues
+ * readJsonColumns throws. One pass without recursion, so any depth the standard parser reads is scanned too.
+ */
+export const duplicateNameIssues = (text: string): InputIssue[] => {
+  const issues: InputIssue[] = [];
+  // Per open container: the names seen (an object) or undefined (an array); its path step in `trail`.
+  const names: (Set<string> | undefined)[] = [];
+  const trail: (string | number)[] = [];
+  let expectName = false;
+  for (let i = 0; i < text.length; i++) {
+    const code = text.charCodeAt(i);
+    if (code === QUOTE) {
+      const start = i;
+      let escaped = false;
+      for (i++; text.charCodeAt(i) !== QUOTE; i++) {
+        if (text.charCodeAt(i) === BACKSLASH) {
+          escaped = true;
+          i++;
+        }
+      }
+      if (!expectName) continue;
+      expectName = false;
+      const name = escaped ? (JSON.parse(text.slice(start, i + 1)) as string) : text.slice(start + 1, i);
+      const seen = names[names.length - 1] as Set<string>;
+      if (seen.has(name)) addDuplicate(issues, trail.slice(0, names.length - 1), name);
+      seen.add(name);
+      trail[names.length - 1] = name;
+    } else if (code === OPEN_OBJECT) {
+      names.push(new Set());
+      expectName = true;
+    } else if (code === OPEN_ARRAY) {
+      names.push(undefined);
+      trail[names.length - 1] = 0;
+    } else if (code === CLOSE_OBJECT || code === CLOSE_ARRAY) {
+      names.pop();
+      expectName = false;
+    } else if (code === COMMA) {
+      if (names[names.length - 1] === undefined) (trail[names.length - 1] as number)++;
+      else expectName = true;
+    }
+  }
+  return issues;
 };

@@ -29,8 +29,14 @@ export type FlagCode = (typeof FLAG_CODES)[number];
 
 const MEANINGS: Record<FlagCode, [Severity, string]> = {
   missing: ["invalid", "An input is absent, null, NaN or equal to the null value; nothing can be computed for this sample."],
-  not_finite: ["invalid", "An input is infinite (for example a number too large for a 64-bit float, such as 1e309)."],
-  non_positive: ["invalid", "A velocity, slowness or density is zero or negative, which no rock or fluid has."],
+  not_finite: [
+    "invalid",
+    "An input is infinite (for example a number too large for a 64-bit float, such as 1e309), or so large or so small (a density of 1e300, a slowness of 1e-320) that a velocity or a computed property is beyond a 64-bit float.",
+  ],
+  non_positive: [
+    "invalid",
+    "A velocity, slowness or density is zero or negative (a number too small for a 64-bit float, such as 1e-400, reads as zero), or a gap-filling correlation predicted one: no rock or fluid has that.",
+  ],
   vs_not_below_vp: [
     "invalid",
     "Vs is not below Vp. A shear wave is always slower than a compressional wave in a solid: the shear pick is wrong or the curves are swapped.",

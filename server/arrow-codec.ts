@@ -2,6 +2,7 @@ import {
   Field,
   Float64,
   makeData,
+  MessageHeader,
   Precision,
   RecordBatch,
   RecordBatchStreamWriter,
@@ -126,15 +127,143 @@ const readColumn = (chunks: readonly Data[], samples: number, name: string, issu
 
 const malformed = (message: string) => new InputIssues([{ field: "body", message }]);
 
+const WHAT_TO_SEND = `send the columns as one Arrow IPC stream (${ARROW_STREAM_MEDIA_TYPE}) and nothing after it`;
+
+/** "ARROW1", the first and last bytes of the Arrow IPC file format (Apache Arrow columnar format, "IPC File Format"). */
+const FILE_MAGIC = [0x41, 0x52, 0x52, 0x4f, 0x57, 0x31];
+const hasMagicAt = (bytes: Uint8Array, at: number) => at >= 0 && FILE_MAGIC.every((byte, i) => bytes[at + i] === byte);
+
+/** Up to eight bytes from `at` in hex, to say what was found. */
+const bytesAt = (bytes: Uint8Array, at: number): string => {
+  const shown = Array.from(bytes.subarray(at, at + 8), (byte) => byte.toString(16).padStart(2, "0")).join(" ");
+  return bytes.length - at > 8 ? `${shown} …` : shown;
+};
+
+/**
+ * The header type and body length of a flatbuffer `Message` (Arrow's Message.fbs: field 1 header_type, ubyte;
+ * field 3 bodyLength, long) in `length` bytes from `start`, every read bounds-checked; undefined when the bytes
+ * are not such a table. Read here, not by the library's decoder, which also walks the custom metadata: this check
+ * reads bytes after the stream too, where a forged metadata count would keep that decoder looping.
+ */
+const messageFields = (view: DataView, start: number, length: number): { header: number; body: number } | undefined => {
+  const end = start + length;
+  const fits = (at: number, size: number) => at >= start && at + size <= end;
+  if (!fits(start, 4)) return undefined;
+  const table = start + view.getUint32(start, true);
+  if (!fits(table, 4)) return undefined;
+  const vtable = table - view.getInt32(table, true);
+  if (!fits(vtable, 4)) return undefined;
+  const vtableSize = view.getUint16(vtable, true);
+  if (!fits(vtable, vtableSize)) return undefined;
+  const field = (id: number, size: number): number | undefined => {
+    const slot = 4 + 2 * id;
+    const offset = slot + 2 <= vtableSize ? view.getUint16(vtable + slot, true) : 0;
+    if (offset === 0) return -1;
+    return fits(table + offset, size) ? table + offset : undefined;
+  };
+  const headerAt = field(1, 1);
+  const bodyAt = field(3, 8);
+  if (headerAt === undefined || bodyAt === undefined) return undefined;
+  return { header: headerAt < 0 ? MessageHeader.NONE : view.getUint8(headerAt), body: bodyAt < 0 ? 0 : Number(view.getBigInt64(bodyAt, true)) };
+};
+
+/** One encapsulated message at a position: its end, the end-of-stream marker, a cut-short message or foreign bytes. */
+type Framed =
+  | { kind: "message"; next: number; header: MessageHeader }
+  | { kind: "end"; next: number }
+  | { kind: "short"; needed: number }
+  | { kind: "foreign" };
+
+/**
+ * Reads the frame of the message at `at` (Apache Arrow columnar format, "Encapsulated message format"): the
+ * continuation 0xFFFFFFFF, an int32 metadata length, the flatbuffer Message, then its body of bodyLength bytes.
+ * Streams older than format 1.0 start a message with the length itself. A length of 0 is the end-of-stream marker.
+ */
+const frameAt = (bytes: Uint8Array, view: DataView, at: number): Framed => {
+  const left = bytes.length - at;
+  if (left < 4) return { kind: "short", needed: 4 };
+  const continued = view.getInt32(at, true) === -1;
+  if (continued && left < 8) return { kind: "short", needed: 8 };
+  const prefix = continued ? 8 : 4;
+  const length = view.getInt32(at + prefix - 4, true);
+  if (length === 0) return { kind: "end", next: at + prefix };
+  if (length < 0 || (!continued && length > left - prefix)) return { kind: "foreign" };
+  if (length > left - prefix) return { kind: "short", needed: prefix + length };
+  const fields = messageFields(view, at + prefix, length);
+  if (fields === undefined || !Number.isSafeInteger(fields.body) || fields.body < 0) return { kind: "foreign" };
+  const { header, body } = fields;
+  if (header !== MessageHeader.Schema && header !== MessageHeader.RecordBatch && header !== MessageHeader.DictionaryBatch) return { kind: "foreign" };
+  if (body > left - prefix - length) return { kind: "short", needed: prefix + length + body };
+  return { kind: "message", next: at + prefix + length + body, header };
+};
+
+/**
+ * Checks that the body is exactly one IPC stream (Apache Arrow columnar format, "IPC Streaming Format": a schema
+ * message, then dictionary and record batch messages, optionally ended by the end-of-stream marker), and says
+ * plainly what else it found: not Arrow at all, a stream cut short, a second stream, or bytes after the stream.
+ */
+const checkStreamFrame = (bytes: Uint8Array): void => {
+  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  let at = 0;
+  for (let messages = 0; at < bytes.length; messages++) {
+    const frame = frameAt(bytes, view, at);
+    if (frame.kind === "end") {
+      at = frame.next;
+      break;
+    }
+    // A body that does not begin with a schema message is not Arrow, unless it began as one (0xFFFFFFFF) and was cut short.
+    const schemaFirst = frame.kind === "message" ? frame.header === MessageHeader.Schema : frame.kind === "short" && bytes.length >= 4 && view.getInt32(0, true) === -1;
+    if (messages === 0 && !schemaFirst) {
+      const first = bytes.find((byte) => byte !== 0x20 && byte !== 0x0a && byte !== 0x0d && byte !== 0x09);
+      const looks = first === 0x7b || first === 0x5b ? "it looks like JSON text (send JSON with Content-Type: application/json)" : `it begins with the bytes ${bytesAt(bytes, 0)}`;
+      throw malformed(`the body is not an Arrow IPC stream: it does not begin with an Arrow schema message, ${looks}; ${WHAT_TO_SEND}`);
+    }
+    if (frame.kind === "short") {
+      throw malformed(
+        `the body is not a whole Arrow IPC stream: it ends inside message ${messages + 1}, which starts at byte ${at} and needs ${frame.needed} bytes where ${bytes.length - at} remain; it was cut short: send the whole stream`,
+      );
+    }
+    if (frame.kind === "foreign") {
+      throw malformed(
+        `the body is not a readable Arrow IPC stream: after ${messages} message${messages === 1 ? "" : "s"}, the bytes from byte ${at} (${bytesAt(bytes, at)}) are not an Arrow IPC message; ${WHAT_TO_SEND}`,
+      );
+    }
+    if (messages > 0 && frame.header === MessageHeader.Schema) break;
+    at = frame.next;
+  }
+  if (at === bytes.length) return;
+  const second = frameAt(bytes, view, at);
+  if (second.kind === "message" && second.header === MessageHeader.Schema) {
+    throw malformed(
+      `the body holds a second Arrow IPC stream from byte ${at}, after the end of the first; only one stream is read per request: write all record batches into one stream under one schema, and send it alone`,
+    );
+  }
+  throw malformed(`the body has ${bytes.length - at} bytes after the end of its Arrow IPC stream, from byte ${at} (${bytesAt(bytes, at)}); ${WHAT_TO_SEND}`);
+};
+
+/** The library's own words, short, as a technical detail after the plain statement. */
+const libraryDetail = (error: unknown): string => {
+  const text = error instanceof Error ? error.message : String(error);
+  return text.length > 120 ? `${text.slice(0, 117)}…` : text;
+};
+
 const readTable = (bytes: Uint8Array): Table => {
   if (bytes.length === 0) throw malformed(`the body is empty; send an Arrow IPC stream (${ARROW_STREAM_MEDIA_TYPE})`);
+  if (hasMagicAt(bytes, 0)) {
+    // The IPC file format ends with its footer and "ARROW1"; anything after it would leave the footer unfound.
+    if (!hasMagicAt(bytes, bytes.length - FILE_MAGIC.length)) {
+      throw malformed(`the body begins as an Arrow IPC file but does not end with one: it was cut short or has bytes after it; ${WHAT_TO_SEND}`);
+    }
+  } else checkStreamFrame(bytes);
   let table: Table;
   try {
     table = tableFromIPC(bytes);
   } catch (error) {
-    throw malformed(`the body is not a readable Arrow IPC stream (${(error as Error).message})`);
+    throw malformed(
+      `the body is not a readable Arrow IPC stream: its messages are framed as Arrow's, but their contents could not be decoded; send one uncompressed Arrow IPC stream (${ARROW_STREAM_MEDIA_TYPE}) as an Arrow library writes it (detail: ${libraryDetail(error)})`,
+    );
   }
-  // The reader answers text or random bytes with an empty table rather than an error.
+  // The reader answers an empty stream (a schema of no columns) with an empty table rather than an error.
   if (table.schema.fields.length === 0) {
     throw malformed(`the body holds no Arrow IPC stream with columns; send one whose columns are named ${ARROW_INPUT_COLUMNS.join(", ")}`);
   }
@@ -143,7 +272,8 @@ const readTable = (bytes: Uint8Array): Table => {
 
 /**
  * Reads an Arrow IPC stream (or file) of several record batches into float64 columns: every integer and
- * float type is converted exactly, nulls become NaN. Unknown names, other types and unreadable bytes are `InputIssues`.
+ * float type is converted exactly, nulls become NaN. Unknown names, other types, unreadable bytes and bytes after
+ * the stream are `InputIssues`.
  */
 export const decodeArrowColumns = (bytes: Uint8Array): ArrowColumns => {
   const table = readTable(bytes);

@@ -44,6 +44,11 @@ export const gapFills = (
     }
     return { correlation, mode: request.fill ?? "nulls" };
   };
+  if (request.fill !== undefined && request.vs_from === undefined && request.rho_from === undefined) {
+    throw new ProblemError("invalid-request", `fill says which samples vs_from or rho_from fill, and neither is given: nothing would be filled.`, [
+      { field: `${prefix}.fill`, message: "give vs_from or rho_from with it, or leave fill out" },
+    ]);
+  }
   return { fillShear: one(request.vs_from, "vs", "vs_from"), fillDensity: one(request.rho_from, "density", "rho_from") };
 };
 

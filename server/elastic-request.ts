@@ -1,7 +1,8 @@
 import {
+  InputIssues,
+  MAX_LISTED_ISSUES,
   requireEqualLengths,
   toFloat64Column,
-  withDefaultLimits,
   type DensityUnit,
   type ElasticLogRequest,
   type ImpedanceUnit,
@@ -12,7 +13,7 @@ import {
 } from "../core/index.js";
 import { gapFills } from "./derived-answer.js";
 import type { ElasticColumnsBody, ElasticPointQuery } from "./schemas/elastic.js";
-import { toPlausibilityLimits, type LimitFields } from "./schemas/limits.js";
+import { limitsFrom, type LimitFields } from "./schemas/limits.js";
 
 interface UnitChoice {
   velocity: VelocityUnit;
@@ -56,7 +57,7 @@ export interface QueryOptions extends LimitFields {
 /** The computation options of a query-string request, in core's terms. */
 export const optionsFromQuery = (query: QueryOptions) => ({
   keepNegativePoisson: query.keep_negative_poisson,
-  limits: withDefaultLimits(toPlausibilityLimits(query)),
+  limits: limitsFrom(query, "query"),
   modulusUnit: query.modulus_unit,
   velocityUnit: query.velocity_unit,
   impedanceUnit: query.impedance_unit,
@@ -104,6 +105,7 @@ export const columnsRequest = (body: ElasticColumnsBody): ColumnsRequest => {
     base: column(body.base, "base"),
   };
   const length = requireEqualLengths(columns);
+  if (columns.top !== undefined && columns.base !== undefined) requireTopsAboveBases(columns.top, columns.base);
   return {
     core: {
       compressional: sonic(columns.vp, columns.dtc, body.units, length),
@@ -111,7 +113,7 @@ export const columnsRequest = (body: ElasticColumnsBody): ColumnsRequest => {
       density: { unit: body.units.density, values: absentIfUndefined(columns.rho, length) },
       nullValue: body.null_value,
       keepNegativePoisson: body.keep_negative_poisson,
-      limits: withDefaultLimits(toPlausibilityLimits(body.limits)),
+      limits: limitsFrom(body.limits, "body.limits"),
       modulusUnit: body.units.modulus,
       velocityUnit: body.units.velocity,
       impedanceUnit: body.units.impedance,
@@ -121,6 +123,18 @@ export const columnsRequest = (body: ElasticColumnsBody): ColumnsRequest => {
     top: columns.top,
     base: columns.base,
   };
+};
+
+/**
+ * Refuses intervals whose top lies below their base (depths increase downwards, so top <= base): a reversed
+ * interval is a swapped pair of columns or a typing error, and its midpoint would put it in the wrong zone unnoticed.
+ */
+const requireTopsAboveBases = (top: Float64Array, base: Float64Array): void => {
+  const issues = [];
+  for (let i = 0; i < top.length && issues.length < MAX_LISTED_ISSUES; i++) {
+    if (top[i] > base[i]) issues.push({ field: "base", index: i, message: `base ${base[i]} is above top ${top[i]}: an interval's top is the shallower depth (top <= base)` });
+  }
+  if (issues.length > 0) throw new InputIssues(issues);
 };
 
 /** Where an interval sits for zone membership: halfway between its top and base. */

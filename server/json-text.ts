@@ -1,5 +1,5 @@
 import secureJson from "secure-json-parse";
-import { readJsonColumns } from "../core/index.js";
+import { duplicateNameIssues, InputIssues, readJsonColumns } from "../core/index.js";
 import { ProblemError } from "./problems.js";
 
 /** Line and column (1-based) of a character offset, so a script author can find the mistake. */
@@ -41,13 +41,17 @@ export const parseJsonText = (text: string): unknown => {
   }
   // The walk runs only when the text names the key at all, so column bodies of numbers pay one substring search.
   if (text.includes('"constructor"') && hasConstructorKey(value)) throw new ProblemError("forbidden-key", FORBIDDEN_KEY);
+  // The parsed value has lost any name given twice (the last one won): the text itself is scanned, as core's reader does.
+  const duplicates = duplicateNameIssues(text);
+  if (duplicates.length > 0) throw new InputIssues(duplicates);
   return value;
 };
 
 /**
  * A JSON body given as bytes, with the arrays of numbers and nulls under `columnKeys` of the top-level object
  * read straight into Float64Arrays (null as NaN): core's reader (core/json-columns.ts) for what it reads, and
- * parseJsonText for what it declines, so an error or a refused key is worded exactly as before.
+ * parseJsonText for what it declines, so an error or a refused key is worded exactly as before. A name given
+ * twice in one object is `InputIssues` on both paths.
  */
 export const parseJsonBody = (bytes: Uint8Array, columnKeys: ReadonlySet<string>): unknown =>
   readJsonColumns(bytes, columnKeys) ?? parseJsonText(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString("utf8"));

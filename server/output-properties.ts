@@ -10,7 +10,7 @@ export interface OutputUnits {
 export interface OutputProperty {
   /** Key in JSON answers. */
   key: string;
-  /** Column name in CSV and LAS output (our own names, prefixed EL_ so they never clash with input curves). */
+  /** Column name in CSV and LAS output (our own names, prefixed EL_; an input curve of the same name is renamed, EL_E:2 or EL_E_2). */
   curve: string;
   description: string;
   unit: (units: OutputUnits) => string;

@@ -11,7 +11,9 @@ import {
   flagCodesOf,
   invalidatingMask,
   lasCurveLayoutOf,
+  lasCurveNames,
   lasIndexItems,
+  uniqueMnemonics,
   type DerivedColumn,
   type ElasticLog,
   type LasCurveToWrite,
@@ -74,6 +76,13 @@ export const derivedCurveName = (id: string): string => `EL_${id.replace(".", "_
 
 const derivedList = (derived: Map<string, DerivedColumn> | undefined): DerivedColumn[] => [...(derived?.values() ?? [])];
 
+/** Names of the computed columns in output order: the service's own, which an input curve of the same name gives way to. */
+const computedNames = (derived: Map<string, DerivedColumn> | undefined): string[] => [
+  ...OUTPUT_PROPERTIES.map((property) => property.curve),
+  ...derivedList(derived).map((column) => derivedCurveName(column.correlation.id)),
+  QC_CURVE,
+];
+
 /** The computed columns of a batch in output order: every property, each derived estimate, the QC bit mask. */
 const computedColumns = (rows: RowBatch): Float64Array[] => [
   ...OUTPUT_PROPERTIES.map((property) => property.column(rows.log)),
@@ -90,9 +99,14 @@ const csvOutput = (header: WellHeader, plan: ConversionPlan, computed: NumberFor
       const columns = [...rows.input, ...computedColumns(rows)];
       if (formats === undefined) {
         formats = columns.map((_, c) => (c < rows.input.length ? SHORTEST : c === columns.length - 1 ? QC_FORMAT : computed));
+        // An input curve named like a computed one (EL_E) is numbered as a repeated curve is (EL_E:2).
+        const names = uniqueMnemonics(
+          header.curves.map((curve) => curve.mnemonic),
+          { reserved: computedNames(rows.derived) },
+        );
         text.utf8(
           csvHeaderRecord([
-            ...header.curves.map((curve) => ({ name: curve.mnemonic, unit: curve.unit })),
+            ...header.curves.map((curve, c) => ({ name: names[c], unit: curve.unit })),
             ...OUTPUT_PROPERTIES.map((property) => ({ name: property.curve, unit: property.unit(units) })),
             ...derivedList(rows.derived).map((column) => ({ name: derivedCurveName(column.correlation.id), unit: column.correlation.outputUnit })),
             { name: QC_CURVE, unit: "" },
@@ -117,13 +131,14 @@ const qcLegend = (invalidMask: number): string[] => [
   "engineering decisions rest with licensed professionals under local regulations.",
 ];
 
-const optionItems = (plan: ConversionPlan): LasItemToWrite[] => {
+/** The options used, as ~Parameter items; `written` names curve `c` of the file as the answer's ~Curve does. */
+const optionItems = (plan: ConversionPlan, written: (c: number) => string): LasItemToWrite[] => {
   const { computation: request, curves } = plan;
   const limits = request.limits;
   const source = (role: "vp" | "vs" | "rho") => {
     const choice = curves[role];
     const fill = role === "vs" ? request.fillShear : role === "rho" ? request.fillDensity : undefined;
-    return choice ? `${choice.mnemonic} ${choice.unit}` : `PREDICTED BY ${fill?.correlation.id}`;
+    return choice ? `${written(choice.index)} ${choice.unit}` : `PREDICTED BY ${fill?.correlation.id}`;
   };
   return [
     { mnemonic: "EL_VERSION", value: SERVICE_VERSION, description: "ELASTILOG VERSION" },
@@ -155,20 +170,28 @@ const inputCurves = (
   columns: (input: readonly Float64Array[], first: number) => Float64Array[];
   /** The first (index) curve's values over a whole file of `rows` rows, from the file's curves. */
   index: (rows: number, curve: (c: number) => Float64Array) => Float64Array;
+  /** Where curve `c` of the file is in `curves`. */
+  position: (c: number) => number;
 } => {
   if (header.format === "las") {
-    return { curves: lasCurveLayoutOf(header.header), columns: (input) => [...input], index: (_, curve) => curve(0) };
+    return { curves: lasCurveLayoutOf(header.header), columns: (input) => [...input], index: (_, curve) => curve(0), position: (c) => c };
   }
   const curves = header.curves.map((curve) => ({ mnemonic: curve.mnemonic, unit: curve.unit, description: curve.description }));
   const depthIndex = plan.curves.depth?.index;
   if (depthIndex !== undefined) {
     const order = [depthIndex, ...curves.map((_, c) => c).filter((c) => c !== depthIndex)];
-    return { curves: order.map((c) => curves[c]), columns: (input) => order.map((c) => input[c]), index: (_, curve) => curve(depthIndex) };
+    return {
+      curves: order.map((c) => curves[c]),
+      columns: (input) => order.map((c) => input[c]),
+      index: (_, curve) => curve(depthIndex),
+      position: (c) => order.indexOf(c),
+    };
   }
   return {
     curves: [{ mnemonic: "INDEX", unit: "", description: "SAMPLE NUMBER" }, ...curves],
     columns: (input, first) => [sampleNumbers(first, input[0]?.length ?? 0), ...input],
     index: (rows) => sampleNumbers(0, rows),
+    position: (c) => c + 1,
   };
 };
 
@@ -199,19 +222,21 @@ const lasOutput = (header: WellHeader, plan: ConversionPlan, computed: NumberFor
           description: `EMPIRICAL ${correlation.kind.toUpperCase()} ${citationText(correlation.citation).replaceAll("doi:", "doi ").replaceAll(":", " -")}`,
           format: computed,
         }));
-        const curves: CurveMeta[] = [
-          ...input.curves,
+        const outputs: CurveMeta[] = [
           ...OUTPUT_PROPERTIES.map((property) => ({ mnemonic: property.curve, unit: property.unit(units), description: property.description, format: computed })),
           ...estimates,
           { mnemonic: QC_CURVE, unit: "", description: "QC FLAG BIT MASK (SEE ~OTHER)", format: QC_FORMAT },
         ];
+        // Input names made valid LAS mnemonics, unique, and never one of the computed curves' (the original kept in the description).
+        const inputs = lasCurveNames(input.curves, computedNames(rows.derived));
+        const curves = [...inputs, ...outputs];
         const caution = estimates.length === 0 ? [] : ["EL_ curves named after a correlation are empirical estimates. " + CAUTION];
         writer = createLasTextWriter({
           header: header.format === "las" ? header.header.sections : undefined,
           curves,
           indexItems: header.format === "las" ? undefined : lasIndexItems({ ...curves[0], values: wholeIndex ?? columns[0] }, String(plan.nullValue)),
           nullValue: plan.nullValue,
-          parameters: optionItems(plan),
+          parameters: optionItems(plan, (c) => inputs[input.position(c)].mnemonic),
           otherLines: [...qcLegend(invalidatingMask(plan.computation.keepNegativePoisson)), ...caution],
         });
         text.utf8(writer.begin(columns));

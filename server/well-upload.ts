@@ -8,6 +8,7 @@ import {
   type LasHeaderView,
   type LasReader,
   type WellTable,
+  WellFileError,
 } from "../core/index.js";
 import { ProblemError } from "./problems.js";
 
@@ -30,6 +31,19 @@ export const sniffFormat = (start: string): "las" | "csv" | undefined => {
   return undefined;
 };
 
+/**
+ * Refuses a body whose first bytes show it is not ASCII/UTF-8 text: a UTF-16 byte-order mark (FF FE or FE FF), or a
+ * NUL byte, which no LAS or CSV text holds (UTF-16 text has one in every ASCII character; a binary file, many).
+ */
+const refuseNonText = (first: Uint8Array): void => {
+  if ((first[0] === 0xff && first[1] === 0xfe) || (first[0] === 0xfe && first[1] === 0xff)) {
+    throw new WellFileError("utf16_text", "the file is UTF-16 text (it begins with a UTF-16 byte-order mark): save it as ASCII or UTF-8 and send it again", 1);
+  }
+  if (first.subarray(0, 4096).includes(0)) {
+    throw new WellFileError("not_text", "the file holds NUL bytes, so it is not ASCII or UTF-8 text (UTF-16 text, or a binary file): save it as ASCII or UTF-8 text and send it again", 1);
+  }
+};
+
 /** The header of a well file as far as converting its rows needs: what a streaming reader knows before the samples. */
 export type WellHeader =
   | { format: "las"; header: LasHeaderView; curves: CurveInfo[]; nullValue: number | undefined }
@@ -47,6 +61,7 @@ export class WellFileReader {
   private csv: CsvReader | undefined;
 
   push(bytes: Uint8Array): void {
+    if (this.las === undefined && this.csv === undefined && this.pending === "") refuseNonText(bytes);
     this.feed(this.decoder.decode(bytes, { stream: true }));
   }
 
@@ -88,6 +103,9 @@ export class WellFileReader {
       return;
     }
     this.pending += text;
+    if (/^\uFEFF?\s*[{[]/.test(this.pending)) {
+      throw new WellFileError("json_body", "the body is JSON, not a LAS or CSV file: send the well file itself here, or JSON columns to POST /v1/elastic", 1);
+    }
     const format = sniffFormat(this.pending);
     if (format === undefined) return;
     if (format === "las") this.las = createLasReader();

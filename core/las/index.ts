@@ -3,3 +3,4 @@ export * from "./las-reader.js";
 export * from "./las-writer.js";
 export type { LasItemToWrite } from "./las-header-writer.js";
 export { formatLasNumber, type LasNumberFormat } from "./las-number-format.js";
+export * from "./las-curve-names.js";

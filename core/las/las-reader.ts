@@ -158,7 +158,14 @@ export const createLasReader = (): LasReader => {
 
   const dataLine = (reader: LasDataReader, text: string, line: number): void => {
     const start = firstNonBlank(text);
-    if (text[start] === "#") return;
+    // Comment lines belong above ~A (CWLS LAS 2.0; from memory): skipping one could drop a sample unseen.
+    if (text[start] === "#") {
+      throw new WellFileError(
+        "las_comment_in_data",
+        "a # comment line inside ~A, where LAS 2.0 allows none: delete the line (or restore the sample it comments out), or move the comment above ~A",
+        line,
+      );
+    }
     if (text[start] === "~") {
       throw new WellFileError("las_section_after_data", `${text.trim()} follows ~A, which must be the last section`, line);
     }
@@ -205,7 +212,9 @@ export const createLasReader = (): LasReader => {
         message: `LAS 1.2 value/description swap detected in ~Well (${mnemonics}): values taken from after the colon`,
       });
     }
-    if (data.samples === 0) allWarnings.push({ line: data.line, message: "~A holds no samples" });
+    if (data.samples === 0) {
+      throw new WellFileError("las_no_rows", "the ~A section holds no data rows (a header with no samples): add the samples after ~A", data.line);
+    }
     allWarnings.sort((a, b) => a.line - b.line);
     return {
       version: version?.value ?? "2.0",

@@ -83,7 +83,7 @@ async function metricsPlugin(app: FastifyInstance): Promise<void> {
     },
   });
 
-  app.addHook("onResponse", async (request, reply) => {
+  app.addHook("onResponse", (request, reply, done) => {
     const labels = {
       method: request.method,
       route: request.routeOptions.url ?? UNMATCHED_ROUTE,
@@ -91,6 +91,7 @@ async function metricsPlugin(app: FastifyInstance): Promise<void> {
     };
     requests.inc(labels);
     durations.observe(labels, reply.elapsedTime / 1000);
+    done();
   });
 
   app.get(

@@ -25,14 +25,22 @@ const send = (
 
 const CONTEXT_NAMES: Record<string, string> = { querystring: "query", body: "body", params: "path", headers: "header" };
 
+/** A query parameter sent more than once arrives as an array; whatever its schema says, that is what to fix. */
+const repeatedParameterMessage = (query: unknown, name: string | undefined): string | undefined => {
+  const value = name === undefined ? undefined : (query as Record<string, unknown> | undefined)?.[name];
+  return Array.isArray(value) ? `is given ${value.length} times (${value.map((v) => JSON.stringify(v)).join(", ")}): give it once` : undefined;
+};
+
 /** Zod issues, as Fastify hands them over, in the request's own field names. */
-const validationErrors = (error: FastifyError): ProblemFieldError[] => {
+const validationErrors = (error: FastifyError, request: FastifyRequest): ProblemFieldError[] => {
   const context = CONTEXT_NAMES[error.validationContext ?? "body"] ?? "body";
   return (error.validation ?? []).flatMap((issue) => {
-    const path = [context, ...issue.instancePath.split("/").filter(Boolean)];
+    const names = issue.instancePath.split("/").filter(Boolean);
+    const path = [context, ...names];
     const keys = (issue.params as { keys?: string[] }).keys;
+    const repeated = context === "query" && names.length === 1 ? repeatedParameterMessage(request.query, names[0]) : undefined;
     return keys === undefined
-      ? [{ field: path.join("."), message: issue.message ?? "is not valid" }]
+      ? [{ field: path.join("."), message: repeated ?? issue.message ?? "is not valid" }]
       : keys.map((key) => ({ field: [...path, key].join("."), message: UNKNOWN_FIELD_MESSAGE }));
   });
 };
@@ -68,7 +76,7 @@ export const installProblemHandlers = (
   app.setErrorHandler((error: FastifyError, request: FastifyRequest, reply: FastifyReply) => {
     if (isProblemError(error)) return send(reply, error.slug, error.detail, error.errors, error.headers);
     if (hasZodFastifySchemaValidationErrors(error)) {
-      const problem = invalidFields(validationErrors(error));
+      const problem = invalidFields(validationErrors(error, request));
       return send(reply, problem.slug, problem.detail, problem.errors);
     }
     if (error.code === "ECONNRESET" || request.raw.aborted || request.raw.socket?.destroyed) {
@@ -112,4 +120,22 @@ export const installProblemHandlers = (
     }
     return send(reply, "not-found", `There is no ${request.method} ${path}. The endpoints are listed at /docs and /openapi.yaml.`);
   });
+};
+
+/**
+ * Fastify's `frameworkErrors`: what its router meets before any hook runs, answered as problems like everything
+ * else (its default is a JSON body of its own). A path that is not valid percent-encoding (RFC 3986 §2.1: `%`
+ * and two hexadecimal digits, the bytes UTF-8) is the client's to fix; an over-long path parameter names nothing here.
+ */
+export const answerFrameworkError = (error: FastifyError, request: FastifyRequest, reply: FastifyReply) => {
+  const path = request.url.split("?")[0];
+  if (error.code === "FST_ERR_MAX_PARAM_LENGTH") {
+    return send(reply, "not-found", `There is no ${request.method} ${path}: a path segment is longer than any name here. The endpoints are listed at /docs and /openapi.yaml.`);
+  }
+  return send(
+    reply,
+    "invalid-request",
+    `The path ${JSON.stringify(path)} is not valid percent-encoding: each % must be followed by two hexadecimal digits, and the bytes must be UTF-8 (RFC 3986 §2.1); write a literal % as %25.`,
+    [{ field: "path", message: "is not valid percent-encoding (RFC 3986 §2.1)" }],
+  );
 };

@@ -22,18 +22,14 @@ export const DOCS_CONTENT_SECURITY_POLICY = {
   "style-src": ["'self'", "'unsafe-inline'"],
 };
 
-/** Paths of the HTML reference and its assets, the pages a browser renders. */
-const isDocsPage = (url: string): boolean => url === "/docs" || url.startsWith("/docs/") || url.startsWith("/docs?");
-
 /**
- * Security headers (@fastify/helmet) on the HTML pages (the reference at /docs and its assets), where a browser
- * renders what it gets. API answers are JSON, CSV, LAS or Arrow read by programs: they get only
- * `X-Content-Type-Options: nosniff`, since helmet's dozen headers on every answer cost measurable throughput
- * on single-point requests and protect nothing a program reads.
+ * Security headers (@fastify/helmet) for HTML pages (the reference at /docs and its assets), where a browser
+ * renders what it gets. Registered in the encapsulated context that holds those pages only (`referencePages`): helmet runs two hooks on every request of its context, and API answers (JSON, CSV, LAS or Arrow,
+ * read by programs) would pay for them on every single-point request while gaining nothing a program reads.
  */
-async function securityHeadersPlugin(app: FastifyInstance): Promise<void> {
+async function pageSecurityHeadersPlugin(app: FastifyInstance): Promise<void> {
   await app.register(helmet, {
-    global: false,
+    global: true,
     contentSecurityPolicy: { useDefaults: false, directives: DOCS_CONTENT_SECURITY_POLICY },
     frameguard: { action: "deny" },
     referrerPolicy: { policy: "no-referrer" },
@@ -42,9 +38,19 @@ async function securityHeadersPlugin(app: FastifyInstance): Promise<void> {
     // reason: on a plain-HTTP address other than localhost it would send /docs's assets to an HTTPS port nobody serves.
     strictTransportSecurity: false,
   });
-  app.addHook("onRequest", async (request, reply) => {
-    if (isDocsPage(request.url)) await reply.helmet();
-    else reply.header("x-content-type-options", "nosniff");
+}
+
+/** fastify-plugin: the headers reach the routes of the context it is registered in, not just its own. */
+export const pageSecurityHeaders = fp(pageSecurityHeadersPlugin, { fastify: "5.x", name: "elastilog-page-security-headers" });
+
+/**
+ * `X-Content-Type-Options: nosniff` on every answer, problems and 404s included, so that no browser guesses a
+ * JSON, CSV or LAS answer to be HTML. A callback hook: an async one costs a promise on every request.
+ */
+async function securityHeadersPlugin(app: FastifyInstance): Promise<void> {
+  app.addHook("onRequest", (_request, reply, done) => {
+    reply.header("x-content-type-options", "nosniff");
+    done();
   });
 }
 

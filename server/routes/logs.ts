@@ -73,7 +73,13 @@ const multipartProblem = (error: unknown): unknown => {
 
 /** What a multipart upload may hold, as said by both readers of it (with zones for JSON, as a stream otherwise). */
 const UPLOAD_PROBLEMS = {
-  unknownField: (name: string) => new ProblemError("invalid-request", `Unknown form field "${name}": send one file part and optionally a zones part.`),
+  unknownField: (name: string) =>
+    new ProblemError(
+      "invalid-request",
+      name === "file"
+        ? 'The well file came as a plain form field, not as a file part: send it with a filename, as curl -F file=@well.las does (the @ makes it a file part).'
+        : `Unknown form field "${name}": send one file part and optionally a zones part.`,
+    ),
   severalFiles: () => new ProblemError("invalid-request", "Send one well file per request; this upload has several file parts."),
   noFile: () => new ProblemError("invalid-request", "The multipart upload has no file part: use curl -F file=@well.las."),
   fileTooLarge: (byteLimit: number) =>
@@ -248,6 +254,11 @@ export default async function logsRoutes(instance: FastifyInstance, options: Log
       if (request.isMultipart()) {
         const upload = await readMultipart(request, options.fileBodyLimitBytes);
         chunks = upload.chunks;
+        if (upload.zones !== undefined && zones !== undefined) {
+          throw new ProblemError("invalid-request", "Zones are given twice, in the query string and as a zones part of the upload: send them one way only.", [
+            { field: "query.zones", message: "leave it out when the upload has a zones part, or drop the part" },
+          ]);
+        }
         zones = upload.zones ?? zones;
       } else {
         chunks = await readBytes(request.body as Readable, options.fileBodyLimitBytes);

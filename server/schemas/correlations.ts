@@ -43,9 +43,16 @@ export const correlationList = z
 
 export const correlationFilter = z.strictObject({ kind: correlationKind.optional(), lithology: lithology.optional() });
 
+/** The first id given twice, if any. */
+const repeatedId = (ids: readonly string[]): string | undefined => ids.find((id, i) => ids.indexOf(id) !== i);
+
 export const correlationIds = z
   .array(z.string().min(1).max(80))
   .max(64)
+  .superRefine((ids, context) => {
+    const twice = repeatedId(ids);
+    if (twice !== undefined) context.addIssue({ code: "custom", message: `names ${twice} twice: give each id once` });
+  })
   .meta({ description: "Ids of catalogue correlations to apply (GET /v1/correlations lists them), e.g. [\"static_e.lacy1997_sandstone\", \"ucs.mcnally1987\"]." });
 
 export const correlationOptions = z
@@ -82,3 +89,19 @@ export const derivedColumns = z
     }),
   )
   .meta({ id: "DerivedColumns", description: "Empirical estimates keyed by correlation id, row-aligned with the input." });
+
+/**
+ * A comma-separated list of correlation ids in a query string. An empty value, an empty entry (`a,,b`) or an id
+ * given twice is refused rather than read as fewer ids, so that what was asked is what is answered.
+ */
+export const correlationIdText = () =>
+  z
+    .string()
+    .max(2000)
+    .superRefine((text, context) => {
+      const ids = text.split(",").map((id) => id.trim());
+      const twice = repeatedId(ids);
+      if (text.trim() === "") context.addIssue({ code: "custom", message: "is empty: give correlation ids separated by commas (GET /v1/correlations lists them), or leave the parameter out" });
+      else if (ids.includes("")) context.addIssue({ code: "custom", message: `has an empty entry in ${JSON.stringify(text)}: separate the ids by single commas` });
+      else if (twice !== undefined) context.addIssue({ code: "custom", message: `names ${twice} twice: give each id once` });
+    });

@@ -2,7 +2,7 @@ import { z } from "zod";
 import { decimalNumber, queryNumber } from "./query-number.js";
 import { flagSummary, pointFlag, sampleFlag, severity } from "./flags.js";
 import { bodyLimitFields, limitFields, limitsUsed } from "./limits.js";
-import { correlationIds, correlationOptions, derivedColumns, derivedPoint, fillMode } from "./correlations.js";
+import { correlationIds, correlationIdText, correlationOptions, derivedColumns, derivedPoint, fillMode } from "./correlations.js";
 import { zoneList, zoneSummarySchema } from "./zones.js";
 import { densityUnit, depthUnit, impedanceUnit, modulusUnit, slownessUnit, unitsUsed, velocityUnit, DEFAULT_UNITS } from "./units.js";
 
@@ -66,9 +66,7 @@ export const elasticPointQuery = z
     null_value: queryNumber(decimalNumber().meta({ default: DEFAULT_NULL_VALUE }))
       .default(DEFAULT_NULL_VALUE)
       .meta({ description: "An input equal to this is absent (flag missing)." }),
-    correlations: z
-      .string()
-      .max(2000)
+    correlations: correlationIdText()
       .optional()
       .meta({ description: "Comma-separated ids of empirical correlations to apply (GET /v1/correlations), e.g. static_e.lacy1997_sandstone,ucs.mcnally1987.", examples: ["static_e.lacy1997_sandstone,ucs.mcnally1987"] }),
     ...fillFields,

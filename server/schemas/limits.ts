@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { decimalNumber, queryNumber } from "./query-number.js";
-import { DEFAULT_PLAUSIBILITY_LIMITS, type PlausibilityLimits } from "../../core/index.js";
+import { DEFAULT_PLAUSIBILITY_LIMITS, withDefaultLimits, type PlausibilityLimits } from "../../core/index.js";
+import { invalidFields, type ProblemFieldError } from "../problems.js";
 
 const d = DEFAULT_PLAUSIBILITY_LIMITS;
 
@@ -62,3 +63,31 @@ export const fromPlausibilityLimits = (limits: PlausibilityLimits): z.infer<type
   rho_max_g_cm3: limits.rhoMaxGramsPerCubicCentimetre,
   vp_vs_max: limits.vpVsMax,
 });
+
+/** Each range's lower and upper bound, by field name. */
+const RANGES = [
+  ["vp_min_m_s", "vp_max_m_s"],
+  ["vs_min_m_s", "vs_max_m_s"],
+  ["rho_min_g_cm3", "rho_max_g_cm3"],
+] as const;
+
+/**
+ * The limits a request asked for, over the defaults, refusing (400) a range whose lower bound is not below its
+ * upper bound after the merge (vp_min_m_s=8000 alone is above the default maximum of 7500): such a range would
+ * flag every sample and describe itself as "8000–1000 m/s". `where` prefixes field names: `query` or `body.limits`.
+ */
+export const limitsFrom = (fields: LimitFields | undefined, where: string): PlausibilityLimits => {
+  const limits = withDefaultLimits(toPlausibilityLimits(fields ?? {}));
+  const used = fromPlausibilityLimits(limits);
+  const errors: ProblemFieldError[] = [];
+  for (const [min, max] of RANGES) {
+    if (used[min] < used[max]) continue;
+    const given = fields?.[min] === undefined ? max : min;
+    errors.push({
+      field: `${where}.${given}`,
+      message: `${min} (${used[min]}${fields?.[min] === undefined ? ", the default" : ""}) must be below ${max} (${used[max]}${fields?.[max] === undefined ? ", the default" : ""})`,
+    });
+  }
+  if (errors.length > 0) throw invalidFields(errors);
+  return limits;
+};

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { queryNumber } from "./query-number.js";
-import { fillMode } from "./correlations.js";
+import { correlationIdText, fillMode } from "./correlations.js";
 import { elasticColumnsResponse } from "./elastic.js";
 import { limitFields } from "./limits.js";
 import { impedanceUnit, modulusUnit, velocityUnit, DEFAULT_UNITS } from "./units.js";
@@ -40,13 +40,12 @@ export const logsQuery = z.strictObject({
   zones: z
     .string()
     .max(20_000)
+    .refine((text) => text.trim() !== "", "is empty: give zones as name:top:base separated by ;, or leave the parameter out")
     .optional()
     .meta({
       description: "Zones to summarise, as name:top:base separated by ; in the depth unit of the file (e.g. Linnet_Sand:1522.4:1561.8;Sorrel_Shale:1561.8:1640.3). A multipart upload may instead send a `zones` part holding a JSON array of {name, top, base}.",
     }),
-  correlations: z
-    .string()
-    .max(2000)
+  correlations: correlationIdText()
     .optional()
     .meta({ description: "Comma-separated ids of empirical correlations to apply to every sample (GET /v1/correlations). Per-zone lists go in the zones part of a multipart upload." }),
   vs_from: z.string().optional().meta({ description: "Id of a vs correlation predicting Vs from Vp where the shear log is absent (or has no curve at all); filled samples are flagged estimated_vs." }),

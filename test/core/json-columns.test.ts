@@ -1,8 +1,9 @@
 // The reference for every check is JSON.parse itself (ECMA-262, section 25.5.1, JSON.parse) of the body decoded as
-// UTF-8, as the standard path decodes it; the number grammar is that of RFC 8259, section 6.
+// UTF-8, as the standard path decodes it; the number grammar is that of RFC 8259, section 6. Names given twice in
+// one object (RFC 8259, section 4: names SHOULD be unique, parsers differ on duplicates) are refused instead.
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { readJsonColumns } from "../../core/index.js";
+import { duplicateNameIssues, InputIssues, readJsonColumns } from "../../core/index.js";
 
 const COLUMNS = new Set(["depth", "dtc", "rho"]);
 const bytesOf = (text: string) => new Uint8Array(Buffer.from(text, "utf8"));
@@ -25,20 +26,59 @@ const hasRefusedKey = (value: unknown): boolean =>
   typeof value === "object" &&
   Object.entries(value).some(([key, child]) => key === "__proto__" || key === "constructor" || hasRefusedKey(child));
 
-/** Reads with the fast reader; when it declines, JSON.parse must refuse the text, or the text holds a refused key. */
+/** Object members in valid JSON text: a colon outside strings only ever separates a name from its value (RFC 8259, section 4). */
+const membersWritten = (text: string): number => {
+  let count = 0;
+  for (let i = 0; i < text.length; i++) {
+    if (text[i] === '"') for (i++; text[i] !== '"'; i++) i += text[i] === "\\" ? 1 : 0;
+    else if (text[i] === ":") count++;
+  }
+  return count;
+};
+
+/** Members JSON.parse kept: fewer than written exactly when some object named a member twice (the last one won). */
+const membersKept = (value: unknown): number => {
+  if (value === null || typeof value !== "object") return 0;
+  const children = Object.values(value);
+  return (Array.isArray(value) ? 0 : children.length) + children.reduce((sum: number, child) => sum + membersKept(child), 0);
+};
+
+/** Whether the fast reader refused a name given twice: the issues it threw, undefined when it read or declined. */
+const readOrIssues = (bytes: Uint8Array): { read: unknown; issues?: InputIssues } => {
+  try {
+    return { read: readJsonColumns(bytes, COLUMNS) };
+  } catch (error) {
+    if (error instanceof InputIssues) return { read: undefined, issues: error };
+    throw error;
+  }
+};
+
+/**
+ * Reads with the fast reader; when it declines, JSON.parse must refuse the text, or the text holds a refused key.
+ * Valid text with a name given twice must be refused by the reader (or declined) and by duplicateNameIssues alike.
+ */
 const agreesWithJsonParse = (bytes: Uint8Array) => {
-  const read = readJsonColumns(bytes, COLUMNS);
+  const { read, issues } = readOrIssues(bytes);
+  const text = Buffer.from(bytes).toString("utf8");
   let reference: { value: unknown } | undefined;
   try {
     reference = { value: standard(bytes) };
   } catch {
     reference = undefined;
   }
-  if (read === undefined) {
-    if (reference !== undefined && !hasRefusedKey(reference.value)) throw new Error(`declined valid JSON: ${Buffer.from(bytes).toString("utf8").slice(0, 200)}`);
+  const duplicated = reference !== undefined && membersWritten(text) > membersKept(reference.value);
+  if (reference !== undefined) expect(duplicateNameIssues(text).length > 0, text.slice(0, 200)).toBe(duplicated);
+  if (issues !== undefined) {
+    if (!duplicated) throw new Error(`refused names of valid JSON without duplicates: ${text.slice(0, 200)}`);
+    expect(issues.issues).toStrictEqual(duplicateNameIssues(text));
     return;
   }
-  if (reference === undefined) throw new Error(`read invalid JSON: ${Buffer.from(bytes).toString("utf8").slice(0, 200)}`);
+  if (read === undefined) {
+    if (reference !== undefined && !hasRefusedKey(reference.value)) throw new Error(`declined valid JSON: ${text.slice(0, 200)}`);
+    return;
+  }
+  if (reference === undefined) throw new Error(`read invalid JSON: ${text.slice(0, 200)}`);
+  if (duplicated) throw new Error(`read a name given twice without notice: ${text.slice(0, 200)}`);
   // toStrictEqual tells -0 from 0 (Object.is) and a Float64Array from an array.
   expect(read).toStrictEqual(expected(reference.value));
 };
@@ -87,7 +127,7 @@ describe("readJsonColumns (JSON.parse with Float64Array columns)", () => {
   });
 
   it("never reads text JSON.parse refuses, and reads what it accepts alike (token soup)", () => {
-    const token = fc.constantFrom("[", "]", "{", "}", ",", ":", '"dtc"', '"a"', '"\\u0041"', '"\\x"', "1", "-", "0", "01", ".5", "1.", "1e", "2.45", "-999.25",
+    const token = fc.constantFrom("[", "]", "{", "}", ",", ":", '"dtc"', '"a"', '"\\u0041"', '"\\u0061"', '"\\x"', "1", "-", "0", "01", ".5", "1.", "1e", "2.45", "-999.25",
       "null", "nul", "true", "tru", "false", " ", "\t", "\n", "\r", "\f", "\u00a0", '"', "\\", '"__proto__"', '"constructor"', "NaN", "Infinity", "+1");
     fc.assert(fc.property(fc.array(token, { maxLength: 30 }), (tokens) => agreesWithJsonParse(bytesOf(tokens.join("")))), { numRuns: 20_000 });
   });
@@ -113,11 +153,68 @@ describe("readJsonColumns (JSON.parse with Float64Array columns)", () => {
     expect(readJsonColumns(bytesOf("[[1,2]]"), COLUMNS)).toStrictEqual([[1, 2]]);
   });
 
-  it("keeps the last of duplicate keys in the first one's place, as JSON.parse does", () => {
-    const text = '{"dtc":[1],"a":1,"dtc":[2,3]}';
-    const read = readJsonColumns(bytesOf(text), COLUMNS) as Record<string, unknown>;
-    expect(Object.keys(read)).toStrictEqual(Object.keys(JSON.parse(text)));
-    expect(read.dtc).toStrictEqual(Float64Array.of(2, 3));
+  it("refuses a name given twice in one object, naming its path, where JSON.parse keeps the last without notice (RFC 8259, section 4)", () => {
+    const cases: [string, string][] = [
+      ['{"dtc":[95],"dts":[170],"rho":[2.4],"dtc":[100]}', "dtc"],
+      ['{"dtc":[95],"units":{"slowness":"us/m","slowness":"us/ft"}}', "units.slowness"],
+      ['{"zones":[{"top":1},{"top":1,"base":2,"top":3}]}', "zones[1].top"],
+      ['{"a":1,"\\u0061":2}', "a"],
+      ['{"x":{"a b":1,"a b":2}}', 'x."a b"'],
+      ['{"rho":[2.4],"rho":[2.5],"rho":"2.6"}', "rho"],
+      ['[{"dtc":[1]},[{"k":null,"k":null}]]', "[1][0].k"],
+    ];
+    for (const [text, field] of cases) {
+      const { read, issues } = readOrIssues(bytesOf(text));
+      expect(read, text).toBeUndefined();
+      expect(issues?.issues, text).toStrictEqual([{ field, message: expect.stringMatching(/is given more than once in one object; send each name once$/) }]);
+      expect(issues?.issues[0].message).toContain(JSON.stringify(field.split(/[.\]]/).at(-1)?.replace(/^"|"$/g, "")));
+      expect(duplicateNameIssues(text), text).toStrictEqual(issues?.issues);
+    }
+    // One name in different objects, and JSON.parse's own reading of a repeated name, for contrast (ECMA-262, JSON.parse).
+    expect(readJsonColumns(bytesOf('{"units":{"a":1},"limits":{"a":1},"zones":[{"a":1},{"a":2}]}'), COLUMNS)).toBeDefined();
+    expect(JSON.parse('{"dtc":[95],"dtc":[100]}')).toStrictEqual({ dtc: [100] });
+  });
+
+  it("lists each repeated name once, at most MAX_LISTED_ISSUES, and reports a syntax error before a duplicate", () => {
+    const issues = readOrIssues(bytesOf(`{${Array.from({ length: 30 }, (_, i) => `"n${i}":1,"n${i}":2,"n${i}":3`).join(",")}}`)).issues;
+    expect(issues?.issues.map((issue) => issue.field)).toStrictEqual(Array.from({ length: 20 }, (_, i) => `n${i}`));
+    // Not valid JSON: declined, so that the standard parser words the syntax error.
+    expect(readOrIssues(bytesOf('{"dtc":[95],"dtc":[100]')).read).toBeUndefined();
+    expect(readOrIssues(bytesOf('{"dtc":[95],"dtc":[100]')).issues).toBeUndefined();
+  });
+
+  it("reports objects with a name given twice always, and objects without never (generated objects, RFC 8259, section 4)", () => {
+    const leaf = fc
+      .oneof(fc.double({ noNaN: true, noDefaultInfinity: true }), fc.string(), fc.boolean(), fc.constant(null), fc.array(fc.option(fc.double({ noNaN: true, noDefaultInfinity: true }))))
+      .map((value) => ({ text: JSON.stringify(value), duplicated: false }));
+    // Spellings of a few names, escaped ones among them: "\u0061" is the name a (RFC 8259, section 7).
+    const spellings: [string, string][] = [['"a"', "a"], ['"\\u0061"', "a"], ['"b"', "b"], ['"dtc"', "dtc"], ['"d\\u0074c"', "dtc"], ['"é"', "é"], ['"\\u00e9"', "é"], ['"units"', "units"]];
+    const gap = fc.constantFrom("", " ", "\n  ");
+    type Built = { text: string; duplicated: boolean };
+    const { object } = fc.letrec<{ node: Built; array: Built; object: Built }>((tie) => ({
+      node: fc.oneof({ depthSize: "small", withCrossShrink: true }, leaf, tie("array"), tie("object")),
+      array: fc.array(tie("node"), { maxLength: 4 }).map((items) => ({ text: `[${items.map((item) => item.text).join(",")}]`, duplicated: items.some((item) => item.duplicated) })),
+      object: fc.array(fc.tuple(fc.constantFrom(...spellings), tie("node"), gap), { maxLength: 5 }).map((members) => ({
+        text: `{${members.map(([[spelling], value, space]) => `${space}${spelling}${space}:${space}${value.text}`).join(",")}}`,
+        duplicated: new Set(members.map(([[, name]]) => name)).size < members.length || members.some(([, value]) => value.duplicated),
+      })),
+    }));
+    fc.assert(
+      fc.property(object, ({ text, duplicated }) => {
+        const { read, issues } = readOrIssues(bytesOf(text));
+        expect(issues !== undefined, text).toBe(duplicated);
+        expect(duplicateNameIssues(text), text).toStrictEqual(issues?.issues ?? []);
+        if (!duplicated) expect(read).toStrictEqual(expected(JSON.parse(text)));
+      }),
+      { numRuns: 3000 },
+    );
+  });
+
+  it("finds a name given twice below nesting too deep for the reader, with the path shortened in the middle", () => {
+    const depth = 50_000;
+    const text = `{"x":${"[".repeat(depth)}{"a":1,"a":2}${"]".repeat(depth)}}`;
+    expect(readOrIssues(bytesOf(text))).toStrictEqual({ read: undefined });
+    expect(duplicateNameIssues(text)).toStrictEqual([{ field: `x${"[0]".repeat(7)}…(${depth + 2 - 16} levels)…${"[0]".repeat(7)}.a`, message: expect.any(String) }]);
   });
 
   it("declines keys __proto__ and constructor (escaped too), an empty body, a byte-order mark and deep nesting", () => {

@@ -1,3 +1,4 @@
+import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { FLAG_CODES, flagBit, flagCodesOf, invalidatingMask, severityOf, summariseFlags } from "../../core/index.js";
 import { elasticOf } from "../helpers/elastic.js";
@@ -21,6 +22,37 @@ describe("QC flag thresholds, at and just either side", () => {
   it("not_finite: ±Infinity (e.g. 1e309 in JSON) is invalid", () => {
     expect(codes(Infinity, 1500, 2.4)).toEqual(["not_finite"]);
     expect(codes(3000, 1500, -Infinity)).toEqual(["not_finite"]);
+  });
+
+  it("not_finite: finite inputs whose velocity or properties overflow a double are invalid, with null properties", () => {
+    // ρ = 1e300 g/cm3 is 1e303 kg/m3, finite; G = ρVs² is not (Number.MAX_VALUE ≈ 1.8e308, IEEE 754 binary64).
+    const dense = elasticOf([3000], [1500], [1e300]);
+    expect(flagCodesOf(dense.flags[0])).toEqual(["not_finite", "density_out_of_range"]);
+    expect(dense.flags[0] & dense.invalidMask).not.toBe(0);
+    expect([dense.youngsModulus[0], dense.shearModulus[0], dense.muRho[0], dense.pImpedance[0]].every(Number.isNaN)).toBe(true);
+    // A slowness of 1e-320 µs/ft (subnormal) is a velocity of 3e325 m/s, beyond a double: not "Vs not below Vp".
+    const fast = elasticOf([3000], [1e-320], [2.4], { shear: { measure: "slowness", unit: "us/ft", values: Float64Array.of(1e-320) } });
+    expect(flagCodesOf(fast.flags[0])).toEqual(["not_finite"]);
+    // A density absurd but within range of every product (Mρ = ρ²Vp² stays below 1.8e308) is only out of range.
+    expect(codes(3000, 1500, 1e140)).toEqual(["density_out_of_range"]);
+    expect(codes(3000, 1500, 1e160)).toEqual(["not_finite", "density_out_of_range"]);
+  });
+
+  it("not_finite is never added to a sample already invalid for another reason (Vs = Vp divides E by zero)", () => {
+    expect(codes(2000, 2000, 1e300)).toEqual(["vs_not_below_vp", "density_out_of_range"]);
+  });
+
+  it("property: every sample that is not invalid has every property finite, whatever its positive finite inputs", () => {
+    const positive = fc.double({ min: Number.MIN_VALUE, max: Number.MAX_VALUE, noNaN: true });
+    fc.assert(
+      fc.property(positive, positive, positive, fc.boolean(), (vp, vs, rho, keepNegativePoisson) => {
+        const log = elasticOf([vp], [vs], [rho], { keepNegativePoisson });
+        if ((log.flags[0] & log.invalidMask) !== 0) return;
+        const properties = [log.youngsModulus, log.poissonsRatio, log.shearModulus, log.bulkModulus, log.lameLambda, log.pWaveModulus, log.vpVsRatio, log.pImpedance, log.sImpedance, log.lambdaRho, log.muRho, log.vp, log.vs];
+        expect(properties.every((column) => Number.isFinite(column[0]))).toBe(true);
+      }),
+      { numRuns: 3000 },
+    );
   });
 
   it("non_positive: 0 and negative inputs are invalid, the smallest positive number is not non_positive", () => {

@@ -275,7 +275,23 @@ describe("decodeArrowColumns", () => {
       expect(error.issues).toHaveLength(1);
       expect(error.issues[0].field).toBe("body");
       expect(error.issues[0].message).toMatch(/Arrow IPC stream/);
+      expect(error.issues[0].message).toMatch(/send /);
+      expect(error.issues[0].message).not.toMatch(/Expected to read|Cannot read properties/);
     }
+  });
+
+  it("says in its own words that bytes are not an Arrow IPC stream, where the library would say \"Expected to read 2147483632 metadata bytes\"", () => {
+    // A message prefix without the continuation 0xFFFFFFFF declares its metadata length itself (pre-1.0 streams,
+    // Apache Arrow columnar format, "Encapsulated message format"); 0x7FFFFFF0 = 2147483632 bytes, 12 present.
+    const forged = Uint8Array.of(0xf0, 0xff, 0xff, 0x7f, ...new Array(12).fill(0x41));
+    expect(() => tableFromIPC(forged)).toThrow(/Expected to read 2147483632 metadata bytes/);
+    const [issue] = issuesOf(() => decodeArrowColumns(forged)).issues;
+    expect(issue.message).toBe(
+      "the body is not an Arrow IPC stream: it does not begin with an Arrow schema message, it begins with the bytes f0 ff ff 7f 41 41 41 41 …; send the columns as one Arrow IPC stream (application/vnd.apache.arrow.stream) and nothing after it",
+    );
+    expect(issuesOf(() => decodeArrowColumns(new TextEncoder().encode(' {"dtc":[95]}'))).issues[0].message).toMatch(/looks like JSON text \(send JSON with Content-Type: application\/json\)/);
+    const cut = streamOf({ dtc: vectorFromArray([95.5, 88.25], new Float64()) }).subarray(0, 100);
+    expect(issuesOf(() => decodeArrowColumns(cut)).issues[0].message).toMatch(/^the body is not a whole Arrow IPC stream: it ends inside message 1, .*cut short: send the whole stream$/);
   });
 
   it("reads the Arrow IPC file format (with footer) like the stream", () => {
@@ -293,5 +309,73 @@ describe("decodeArrowColumns", () => {
         expect(depths.every((v, i) => Object.is(echoed?.[i], v))).toBe(true);
       }),
     );
+  });
+});
+
+describe("decodeArrowColumns reads exactly one IPC stream (Apache Arrow columnar format, \"IPC Streaming Format\": encapsulated messages, optionally ended by the end-of-stream marker 0xFFFFFFFF 0x00000000)", () => {
+  const stream = (dtc: number[]) => streamOf({ dtc: vectorFromArray(dtc, new Float64()), rho: vectorFromArray(dtc.map(() => 2.4), new Float64()) });
+  const join = (...parts: Uint8Array[]) => new Uint8Array(Buffer.concat(parts));
+  const ascii = (text: string) => new TextEncoder().encode(text);
+  const END_OF_STREAM = [0xff, 0xff, 0xff, 0xff, 0, 0, 0, 0];
+  /** The stream without its end-of-stream marker, which the format makes optional. */
+  const unended = (bytes: Uint8Array) => {
+    expect(Array.from(bytes.subarray(-8))).toEqual(END_OF_STREAM);
+    return bytes.subarray(0, bytes.length - 8);
+  };
+  const multiBatch = () => {
+    const batch = (dtc: number[]) => new Table({ dtc: vectorFromArray(dtc, new Float64()) });
+    return tableToIPC(new Table([...batch([95, 96]).batches, ...batch([97]).batches, ...batch([98, 99, 100]).batches]), "stream");
+  };
+
+  it("refuses a second stream after the first, which the library alone would drop without notice", () => {
+    const twice = join(stream([95, 96, 97]), stream([98, 99, 100]));
+    expect(tableFromIPC(twice).numRows).toBe(3); // what the library reads: the first stream only
+    for (const body of [twice, join(unended(stream([95, 96, 97])), stream([98, 99, 100])), join(multiBatch(), multiBatch())]) {
+      const issues = issuesOf(() => decodeArrowColumns(body)).issues;
+      expect(issues).toEqual([{ field: "body", message: expect.stringMatching(/^the body holds a second Arrow IPC stream from byte \d+, after the end of the first; .*write all record batches into one stream under one schema, and send it alone$/) }]);
+    }
+  });
+
+  it("refuses bytes after the end-of-stream marker, or after the last message when the marker is absent, naming them", () => {
+    const ok = stream([95, 96, 97]);
+    expect(issuesOf(() => decodeArrowColumns(join(ok, ascii("JUNKJUNKJUNK")))).issues).toEqual([
+      { field: "body", message: `the body has 12 bytes after the end of its Arrow IPC stream, from byte ${ok.length} (4a 55 4e 4b 4a 55 4e 4b …); send the columns as one Arrow IPC stream (application/vnd.apache.arrow.stream) and nothing after it` },
+    ]);
+    // Zero padding after the marker, and a second marker, are bytes after the stream too.
+    for (const extra of [new Uint8Array(8), Uint8Array.from(END_OF_STREAM), ascii("\n")]) {
+      expect(issuesOf(() => decodeArrowColumns(join(ok, extra))).issues[0].message).toMatch(new RegExp(`^the body has ${extra.length} bytes after the end of its Arrow IPC stream`));
+    }
+    const open = unended(ok);
+    expect(issuesOf(() => decodeArrowColumns(join(open, ascii("JUNKJUNKJUNK")))).issues[0].message).toMatch(
+      new RegExp(`^the body is not a readable Arrow IPC stream: after 2 messages, the bytes from byte ${open.length} \\(4a 55 4e 4b .*\\) are not an Arrow IPC message; send the columns as one Arrow IPC stream`),
+    );
+    expect(issuesOf(() => decodeArrowColumns(join(multiBatch(), ascii("JUNK")))).issues[0].message).toMatch(/4 bytes after the end of its Arrow IPC stream/);
+  });
+
+  it("reads a stream with or without its end-of-stream marker, in one record batch or several", () => {
+    for (const body of [stream([95, 96, 97]), unended(stream([95, 96, 97]))]) expect(asNumbers(decodeArrowColumns(body).columns.dtc)).toEqual([95, 96, 97]);
+    for (const body of [multiBatch(), unended(multiBatch())]) expect(asNumbers(decodeArrowColumns(body).columns.dtc)).toEqual([95, 96, 97, 98, 99, 100]);
+  });
+
+  it("refuses any bytes after a stream, and reads the stream alone (random streams and trailing bytes)", () => {
+    fc.assert(
+      fc.property(fc.array(fc.double(), { minLength: 1, maxLength: 20 }), fc.boolean(), fc.uint8Array({ minLength: 1, maxLength: 64 }), (dtc, ended, extra) => {
+        const body = ended ? stream(dtc) : unended(stream(dtc));
+        expect(decodeArrowColumns(body).samples).toBe(dtc.length);
+        // An open stream followed by an end-of-stream marker (or the pre-1.0 one, 0x00000000) is one whole stream.
+        fc.pre(ended || ![[0, 0, 0, 0], END_OF_STREAM].some((marker) => marker.join() === Array.from(extra).join()));
+        const issues = issuesOf(() => decodeArrowColumns(join(body, extra))).issues;
+        expect(issues).toHaveLength(1);
+        expect(issues[0].field).toBe("body");
+        expect(issues[0].message).toMatch(/Arrow IPC stream/);
+      }),
+      { numRuns: 500 },
+    );
+  });
+
+  it("refuses an Arrow IPC file with bytes after its closing ARROW1 (Apache Arrow columnar format, \"IPC File Format\")", () => {
+    const file = tableToIPC(tableFromArrays({ dtc: Float64Array.of(95.5, 88.25) }), "file");
+    expect(Array.from(file.subarray(-6))).toEqual(Array.from(ascii("ARROW1")));
+    expect(issuesOf(() => decodeArrowColumns(join(file, ascii("JUNK")))).issues[0].message).toMatch(/^the body begins as an Arrow IPC file but does not end with one: it was cut short or has bytes after it; send/);
   });
 });

@@ -161,6 +161,22 @@ describe("gap filling (vs_from, rho_from)", () => {
     expect(none.E[0]).toBeNull();
   });
 
+  it("a Vs that vs_from predicts at zero or below (Castagna et al. 1985, Vs = 0.8621·Vp − 1172.4 m/s, below Vp ≈ 1360 m/s) is flagged non_positive and not returned", async () => {
+    // DTC 300 µs/ft is Vp = 1016 m/s: the mudrock line gives 0.8621·1016 − 1172.4 ≈ −296.5 m/s.
+    const { body } = await post({ dtc: [300], dts: [null], rho: [2.1], vs_from: "vs.castagna1985" });
+    expect(body.vs).toEqual([null]);
+    expect(body.E).toEqual([null]);
+    const codes = body.flags.map((flag: { code: string }) => flag.code);
+    expect(codes).toEqual(expect.arrayContaining(["estimated_vs", "non_positive"]));
+    expect(codes).not.toContain("negative_bulk_modulus");
+  });
+
+  it("fill without vs_from or rho_from is a 400 naming fill, not an option that silently does nothing", async () => {
+    const { response, body } = await post({ dtc, dts, rho, vs_from: undefined, fill: "all" });
+    expect(response.statusCode).toBe(400);
+    expect(body.errors).toContainEqual({ field: "body.fill", message: "give vs_from or rho_from with it, or leave fill out" });
+  });
+
   it("rho_from predicts density from Vp with Gardner et al. (1974), ρ = 0.31·Vp^0.25 (Vp in m/s)", async () => {
     const { body } = await post({ dtc: [100], dts: [180], vs_from: undefined, rho_from: "density.gardner1974" });
     expect(body.filled).toEqual({ vs: 0, rho: 1 });

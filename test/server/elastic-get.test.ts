@@ -78,7 +78,11 @@ describe("GET /v1/elastic", () => {
     ["vp=3000&vs=1500", "query.rho", ""],
     ["vp=3000&vs=1500&rho=2.4&modulus_unit=kbar", "query.modulus_unit", "GPa"],
     ["vp=abc&vs=1500&rho=2.4", "query.vp", "number"],
-    ["vp=1e309&vs=1500&rho=2.4", "query.vp", "Infinity"],
+    ["vp=1e309&vs=1500&rho=2.4", "query.vp", 'got "1e309", which is beyond a 64-bit float'],
+    ["vp=95abc&vs=1500&rho=2.4", "query.vp", 'got "95abc"'],
+    ["vp=95%00&vs=1500&rho=2.4", "query.vp", 'got "95\\u0000"'],
+    ["dtc=95&dtc=96&dts=170&rho=2.4", "query.dtc", 'is given 2 times ("95", "96"): give it once'],
+    ["dtc=95&dts=170&rho=2.4&rho_min_g_cm3=-5", "query.rho_min_g_cm3", "must be above 0, got -5"],
     ["vp=3000&vs=1500&rho=2.4&Vp=1", "query.Vp", "unknown field"],
     ["dtc=&dts=170&rho=2.4", "query.dtc", "is empty"],
     ["vp=0x10&vs=1500&rho=2.4", "query.vp", "expected a finite decimal number"],
@@ -89,4 +93,46 @@ describe("GET /v1/elastic", () => {
     expect(body).toMatchObject({ type: "/problems/invalid-request", status: 400, title: expect.any(String) });
     expect(body.errors).toContainEqual({ field, message: expect.stringContaining(words) });
   });
+
+  it.each([["image/png"], ["application/json;q=0"], ["text/csv, application/x-las"]])(
+    "Accept: %s, which names nothing this endpoint writes, is a 406 problem (RFC 9110 §12.5.1), as openapi.yaml documents",
+    async (accept) => {
+      const app = await build();
+      const response = await app.inject({ url: "/v1/elastic?dtc=95&dts=170&rho=2.45", headers: { accept } });
+      expect(response.statusCode).toBe(406);
+      expect(response.headers["content-type"]).toMatch(/^application\/problem\+json/);
+      expect(response.json()).toMatchObject({ type: "/problems/not-acceptable", detail: expect.stringContaining("application/json") });
+    },
+  );
+
+  it.each([["*/*"], ["application/*"], ["application/json"], ["text/html, application/json;q=0.5"]])("Accept: %s gets the JSON answer", async (accept) => {
+    const app = await build();
+    const response = await app.inject({ url: "/v1/elastic?dtc=95&dts=170&rho=2.45", headers: { accept } });
+    expect(response.statusCode).toBe(200);
+    expect(response.headers["content-type"]).toMatch(/^application\/json/);
+  });
+
+  it("a body sent with the GET is refused (400 naming the body), not silently ignored", async () => {
+    const app = await build();
+    const response = await app.inject({
+      method: "GET",
+      url: "/v1/elastic?dtc=95&dts=170&rho=2.45",
+      headers: { "content-type": "application/json" },
+      payload: '{"dtc":[100]}',
+    });
+    expect(response.statusCode).toBe(400);
+    expect(response.json().errors).toContainEqual({ field: "body", message: expect.stringContaining("POST") });
+  });
+
+  it.each([
+    ["vp_min_m_s=8000&vp_max_m_s=1000", "query.vp_min_m_s", "vp_min_m_s (8000) must be below vp_max_m_s (1000)"],
+    ["vp_min_m_s=8000", "query.vp_min_m_s", "vp_min_m_s (8000) must be below vp_max_m_s (7500, the default)"],
+    ["rho_max_g_cm3=0.5", "query.rho_max_g_cm3", "rho_min_g_cm3 (1, the default) must be below rho_max_g_cm3 (0.5)"],
+    ["vs_min_m_s=900&vs_max_m_s=900", "query.vs_min_m_s", "must be below"],
+  ])("a plausibility range whose bounds are reversed or equal after the defaults (?%s) is a 400 naming %s", async (limits, field, words) => {
+    const { response, body } = await get(`dtc=95&dts=170&rho=2.45&${limits}`);
+    expect(response.statusCode).toBe(400);
+    expect(body.errors).toContainEqual({ field, message: words.includes("(") ? words : expect.stringContaining(words) });
+  });
 });
+

@@ -99,4 +99,18 @@ describe("POST /v1/elastic", () => {
     expect(response.statusCode).toBe(413);
     expect(body).toMatchObject({ type: "/problems/body-too-large", detail: expect.stringContaining("1000 bytes") });
   });
+
+  it("reversed plausibility bounds in body.limits are a 400 naming the field, not a range that flags every sample", async () => {
+    const { response, body } = await post({ dtc: [95], dts: [170], rho: [2.45], limits: { rho_min_g_cm3: 2.9, rho_max_g_cm3: 2.1 } });
+    expect(response.statusCode).toBe(400);
+    expect(body.errors).toContainEqual({ field: "body.limits.rho_min_g_cm3", message: "rho_min_g_cm3 (2.9) must be below rho_max_g_cm3 (2.1)" });
+  });
+
+  it("an interval whose top lies below its base is a 400 naming the row, not a silently misplaced interval", async () => {
+    const { response, body } = await post({ top: [1500, 1502], base: [1501, 1501.5], vp: [3000, 3100], vs: [1500, 1550], rho: [2.4, 2.45] });
+    expect(response.statusCode).toBe(400);
+    expect(JSON.stringify(body.errors)).toContain("base 1501.5 is above top 1502");
+    expect(body.errors).toHaveLength(1);
+  });
 });
+

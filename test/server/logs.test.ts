@@ -80,6 +80,23 @@ describe("POST /v1/logs", () => {
     expect(answer.zones[0].properties.E.p50).toBeCloseTo((answer.E[0] + answer.E[1]) / 2, 12);
   });
 
+  it("a well file sent as a plain form field (curl -F file=<well.csv, without @) gets a 400 saying to send it as a file part", async () => {
+    const { body, contentType } = multipartBody([{ name: "file", content: SMALL_CSV }]);
+    const response = await upload(body, "", { "content-type": contentType });
+    expect(response.statusCode).toBe(400);
+    expect(response.json().detail).toContain("-F file=@well.las");
+  });
+
+  it("refuses zones given both in the query and as a part (400), instead of answering one set and dropping the other", async () => {
+    const { body, contentType } = multipartBody([
+      { name: "file", filename: "small.csv", content: SMALL_CSV },
+      { name: "zones", content: JSON.stringify([{ name: "Upper", top: 1000, base: 1001 }]) },
+    ]);
+    const response = await upload(body, "?zones=Lower:1001:1002", { "content-type": contentType });
+    expect(response.statusCode).toBe(400);
+    expect(response.json().errors).toContainEqual({ field: "query.zones", message: expect.stringContaining("zones part") });
+  });
+
   it("takes the zones as a file part too (curl -F zones=@zones.json), and refuses a second well file", async () => {
     const zones = JSON.stringify([{ name: "Upper", top: 1000, base: 1001 }]);
     const asFile = multipartBody([

@@ -67,3 +67,24 @@ describe("405 Method Not Allowed (RFC 9110 §15.5.6)", () => {
     expect((await app.inject({ method: "DELETE", url: "/v1/nothing" })).statusCode).toBe(404);
   });
 });
+
+describe("errors met while routing (Fastify's frameworkErrors)", () => {
+  it.each([["/v1/%zz"], ["/v1/correlations/%zz"], ["/problems/%E0%A4%A"]])(
+    "%s, not valid percent-encoding (RFC 3986 §2.1), is a 400 problem that says how to write a literal %%",
+    async (url) => {
+      const response = await raw("GET", url);
+      expect(response.statusCode).toBe(400);
+      expect(response.headers["content-type"]).toMatch(/^application\/problem\+json/);
+      const body = problemSchema.parse(response.json());
+      expect(body).toMatchObject({ type: "/problems/invalid-request", detail: expect.stringContaining("%25") });
+      expect(body.request_id).toEqual(expect.any(String));
+    },
+  );
+
+  it("a path parameter longer than any name (Fastify's limit of 100 characters) is a 404 problem, not Fastify's own JSON", async () => {
+    const response = await raw("GET", `/problems/${"x".repeat(150)}`);
+    expect(response.statusCode).toBe(404);
+    expect(response.headers["content-type"]).toMatch(/^application\/problem\+json/);
+    expect(problemSchema.parse(response.json())).toMatchObject({ type: "/problems/not-found" });
+  });
+});

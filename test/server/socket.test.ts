@@ -1,3 +1,4 @@
+import { connect } from "node:net";
 import type { FastifyInstance } from "fastify";
 import { request } from "undici";
 import { afterEach, describe, expect, it } from "vitest";
@@ -44,5 +45,24 @@ describe("over a real socket (undici client)", () => {
     const response = await request(`${base}/livez`, { headers: { "x-request-id": "bad id with spaces" } });
     await response.body.text();
     expect(response.headers["x-request-id"]).not.toBe("bad id with spaces");
+  });
+
+  it("a request line longer than Node accepts gets a 431 problem (RFC 6585 §5) with a request_id and what to do instead", async () => {
+    const base = new URL(await listen());
+    const answer = await new Promise<string>((resolve, reject) => {
+      const socket = connect(Number(base.port), base.hostname, () => {
+        socket.write(`GET /v1/elastic?dtc=${"9".repeat(20_000)} HTTP/1.1\r\nHost: x\r\n\r\n`);
+      });
+      let text = "";
+      socket.on("data", (chunk) => (text += chunk.toString("latin1")));
+      socket.on("close", () => resolve(text));
+      socket.on("error", reject);
+    });
+    expect(answer).toMatch(/^HTTP\/1\.1 431 /);
+    expect(answer).toMatch(/content-type: application\/problem\+json/i);
+    const body = JSON.parse(answer.slice(answer.indexOf("\r\n\r\n") + 4)) as { type: string; detail: string; request_id?: string };
+    expect(body.type).toBe("/problems/header-too-large");
+    expect(body.detail).toContain("POST body");
+    expect(body.request_id).toMatch(/^[0-9a-f-]{36}$/);
   });
 });

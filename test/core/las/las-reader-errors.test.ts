@@ -95,6 +95,27 @@ describe("parseLas errors", () => {
     expect(failureOf(lasWith("10.0 90 2.4", "~Other", "note"))).toMatchObject({ code: "las_section_after_data", line: 15 });
   });
 
+  it("refuses a # comment line inside ~A, naming it and saying to delete it or move it above ~A (CWLS LAS 2.0: comment lines only above ~A; from memory)", () => {
+    // Four samples, the second commented out: read as three before, a sample dropped without a word.
+    const failure = failureOf(lasWith("10.0 90 2.4", "# 10.5 91 2.5", "11.0 92 2.6", "11.5 93 2.7"));
+    expect(failure).toMatchObject({ code: "las_comment_in_data", line: 15 });
+    expect(failure.message).toMatch(/^line 15: a # comment line inside ~A.*delete the line.*move the comment above ~A$/);
+    expect(failureOf(lasWith("  # indented, before any sample", "10.0 90 2.4"))).toMatchObject({ code: "las_comment_in_data", line: 14 });
+    expect(failureOf(lasWith("10.0 90 2.4", "#").replaceAll("\n", "\r\n"))).toMatchObject({ code: "las_comment_in_data", line: 15 });
+    // Above ~A a comment is fine (CWLS LAS 2.0; from memory).
+    expect(parseLas(lasWith("10.0 90 2.4").replace("~A", "# a remark\n~A")).table.columns[0]).toEqual(new Float64Array([10]));
+  });
+
+  it("refuses an ~A section with no data rows, naming the ~A line, as a CSV header with no rows is refused (README: a header-only file is a 422)", () => {
+    for (const text of [lasWith(), lasWith(""), lasWith("", "   ", "\t")]) {
+      const failure = failureOf(text);
+      expect(failure).toMatchObject({ code: "las_no_rows", line: 13 });
+      expect(failure.message).toBe("line 13: the ~A section holds no data rows (a header with no samples): add the samples after ~A");
+    }
+    const wrapped = failureOf(lasWith().replace("WRAP. NO", "WRAP. YES"));
+    expect(wrapped).toMatchObject({ code: "las_no_rows", line: 13 });
+  });
+
   it("names the line also when the text arrives with CRLF line ends", () => {
     const text = lasWith("10.0 90 2.4", "10.5 91 2.5 7").replaceAll("\n", "\r\n");
     expect(failureOf(text)).toMatchObject({ code: "las_too_many_values", line: 15 });

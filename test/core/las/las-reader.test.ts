@@ -87,7 +87,7 @@ describe("parseLas on an unwrapped LAS 2.0 file", () => {
 });
 
 describe("parseLas on other files real wells produce", () => {
-  it("reads wrapped data: the index alone on its line, values running over several lines, comment and blank lines skipped (CWLS LAS 2.0, Appendix 1 Part 4, ~V WRAP and ~A)", () => {
+  it("reads wrapped data: the index alone on its line, values running over several lines, a comment line above ~A and a blank line in it skipped (CWLS LAS 2.0, Appendix 1 Part 4, ~V WRAP and ~A)", () => {
     const document = parseLas(lasFixture("wrapped.las"));
     expect(document.wrapped).toBe(true);
     expect(document.table.columns.map((values) => Array.from(values))).toEqual([
@@ -228,15 +228,14 @@ describe("parseLas on other files real wells produce", () => {
     ]);
   });
 
-  it("warns about an unreadable NULL, an odd WRAP, an unknown VERS and an empty ~A (ours)", () => {
-    const text = "~V\nVERS. 2.5 : ?\nWRAP. MAYBE : ?\n~W\nSTRT.M 1 : S\nSTOP.M 1 : S\nSTEP.M 0 : S\nNULL. none : N\n~C\nDEPT.M : D\n~A\n";
+  it("warns about an unreadable NULL, an odd WRAP and an unknown VERS (ours)", () => {
+    const text = "~V\nVERS. 2.5 : ?\nWRAP. MAYBE : ?\n~W\nSTRT.M 1 : S\nSTOP.M 1 : S\nSTEP.M 0 : S\nNULL. none : N\n~C\nDEPT.M : D\n~A\n1\n";
     const document = parseLas(text);
-    expect(document.table.columns[0].length).toBe(0);
+    expect(document.table.columns[0].length).toBe(1);
     expect(document.well.nullValue).toBeUndefined();
     expect(document.warnings).toEqual([
       { line: 3, message: "WRAP \"MAYBE\" is neither YES nor NO; read as NO" },
       { line: 8, message: "NULL \"none\" is not a number; ignored" },
-      { line: 11, message: "~A holds no samples" },
     ]);
     expect(parseLas(text.replace("VERS. 2.5", "VERS. 4.0")).warnings[0]).toEqual({
       line: 2,

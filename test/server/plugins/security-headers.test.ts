@@ -1,7 +1,7 @@
 import swagger from "@fastify/swagger";
-import swaggerUi from "@fastify/swagger-ui";
 import type { FastifyInstance } from "fastify";
 import { describe, expect, it } from "vitest";
+import { referencePages } from "../../../server/plugins/reference-pages.js";
 import { securityHeaders } from "../../../server/plugins/security-headers.js";
 import { bareApp } from "./bare-app.js";
 
@@ -10,7 +10,7 @@ const withDocs = () =>
   bareApp(async (app) => {
     await app.register(securityHeaders);
     await app.register(swagger, { openapi: { openapi: "3.1.0", info: { title: "elastilog", version: "0.0.0" } } });
-    await app.register(swaggerUi, { routePrefix: "/docs", uiConfig: { docExpansion: "list", deepLinking: true } });
+    await app.register(referencePages);
   });
 
 /** Directive name → its source list (CSP Level 3, §2.2: `;`-separated directives, space-separated values). */
