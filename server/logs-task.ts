@@ -6,7 +6,7 @@ import { logsAnswer } from "./logs-answer.js";
 import { ProblemError, unreadableFile, unusableData } from "./problems.js";
 import type { LogsQuery } from "./schemas/logs.js";
 import { convertWell, type ConversionOptions } from "./well-conversion.js";
-import { readWellFile } from "./well-upload.js";
+import { readWellFile, type FileEncoding } from "./well-upload.js";
 
 export type ZoneWithList = Zone & { correlations?: string[] };
 
@@ -16,6 +16,8 @@ export interface LogsTask {
   query: LogsQuery;
   zones: ZoneWithList[] | undefined;
   maxSamples: number;
+  /** The encoding the request declared (`charset=`); undefined: found from the bytes. */
+  encoding?: FileEncoding;
 }
 
 export type LogsResult = AnswerParts;
@@ -40,7 +42,7 @@ export const correlationIds = (query: LogsQuery): string[] | undefined =>
 export const convertLogs = async (task: LogsTask): Promise<LogsResult> => {
   const { query, zones } = task;
   try {
-    const file = await readWellFile(task.chunks);
+    const file = await readWellFile(task.chunks, task.encoding);
     const rows = file.table.columns[0]?.length ?? 0;
     if (rows > task.maxSamples) {
       throw new ProblemError("too-many-samples", `The file has ${rows} samples; at most ${task.maxSamples} are accepted in one request. Split the well.`);

@@ -155,7 +155,7 @@ export const requestForRows = (plan: ConversionPlan, columns: readonly Float64Ar
 
 /** Finds the curves, settles their units, and computes the elastic log of a whole well. */
 export const convertWell = (file: WellFile, options: ConversionOptions): WellConversion => {
-  const plan = planConversion({ ...file.table, warnings: file.format === "las" ? file.las.warnings : [] }, options);
+  const plan = planConversion({ ...file.table, warnings: [...file.notes, ...(file.format === "las" ? file.las.warnings : [])] }, options);
   const request = requestForRows(plan, file.table.columns);
   const depth = plan.curves.depth;
   return {

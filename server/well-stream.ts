@@ -6,7 +6,7 @@ import { ProblemError } from "./problems.js";
 import type { LogsQuery } from "./schemas/logs.js";
 import { planConversion, requestForRows, type ConversionPlan } from "./well-conversion.js";
 import { createWellOutput, type TextFormat, type WellOutput } from "./well-output.js";
-import { WellFileReader, type WellHeader } from "./well-upload.js";
+import { WellFileReader, type FileEncoding, type WellHeader } from "./well-upload.js";
 
 export interface WellStreamTask {
   query: LogsQuery;
@@ -14,6 +14,8 @@ export interface WellStreamTask {
   maxSamples: number;
   /** Bytes of file accepted in one request. */
   byteLimit: number;
+  /** The encoding the request declared (`charset=`); undefined: found from the bytes. */
+  encoding?: FileEncoding;
 }
 
 /** Rows converted and written at a time: enough to amortise the work per batch, few enough to keep the event loop answering. */
@@ -51,7 +53,7 @@ export async function* convertWellStream(source: AsyncIterable<Uint8Array>, task
   const { query, format } = task;
   const options = conversionOptions(query);
   const ids = correlationIds(query);
-  const reader = new WellFileReader();
+  const reader = new WellFileReader(task.encoding);
   const text = new AsciiText(1 << 20);
   const summary: FlagSummary = { count: 0, valid: 0, flags: {} };
   let setup: { plan: ConversionPlan; output: WellOutput; curveCount: number } | undefined;

@@ -12,7 +12,43 @@ import {
 } from "../core/index.js";
 import { ProblemError } from "./problems.js";
 
-export type WellFile = { format: "las"; las: LasDocument; table: WellTable } | { format: "csv"; csv: CsvDocument; table: WellTable };
+/** What the reader noticed about the bytes themselves (their encoding), for the answer's warnings. */
+export type ReadingNote = { line?: number; message: string };
+
+export type WellFile = ({ format: "las"; las: LasDocument; table: WellTable } | { format: "csv"; csv: CsvDocument; table: WellTable }) & {
+  notes: readonly ReadingNote[];
+};
+
+/** The text encodings a well file is read in: UTF-8 (which US-ASCII is part of), or Windows-1252, the superset of ISO-8859-1. */
+export type FileEncoding = "utf-8" | "windows-1252";
+
+/** Charset labels a request may declare (RFC 9110 §8.3.2), case-insensitive; the WHATWG Encoding standard reads ISO-8859-1 as Windows-1252. */
+const CHARSETS: Readonly<Record<string, FileEncoding>> = {
+  "utf-8": "utf-8",
+  utf8: "utf-8",
+  "us-ascii": "utf-8",
+  ascii: "utf-8",
+  "iso-8859-1": "windows-1252",
+  "iso_8859-1": "windows-1252",
+  latin1: "windows-1252",
+  "l1": "windows-1252",
+  "windows-1252": "windows-1252",
+  cp1252: "windows-1252",
+};
+
+/**
+ * The encoding a Content-Type declares with `charset=`, or undefined when it declares none (the reader then
+ * takes UTF-8, or Windows-1252 when the first bytes are not UTF-8). An encoding it cannot read is a 415.
+ */
+export const declaredEncoding = (contentType: string | undefined): FileEncoding | undefined => {
+  const match = /;\s*charset\s*=\s*"?([^";\s]+)"?/i.exec(contentType ?? "");
+  if (match === null) return undefined;
+  const encoding = CHARSETS[match[1].toLowerCase()];
+  if (encoding === undefined) {
+    throw new ProblemError("unsupported-media-type", `charset=${match[1]} is not read here: send the file as UTF-8 (or US-ASCII), or as ISO-8859-1 / Windows-1252 and say so with charset=iso-8859-1.`);
+  }
+  return encoding;
+};
 
 /**
  * A LAS file begins with a `~` section line (after optional `#` comments and blank lines, CWLS LAS 2.0);
@@ -55,14 +91,42 @@ export type WellHeader =
  * lines and numeric columns. The format is judged from the first lines (`sniffFormat`).
  */
 export class WellFileReader {
-  private readonly decoder = new TextDecoder("utf-8");
+  private decoder: InstanceType<typeof TextDecoder>;
   private pending = "";
   private las: LasReader | undefined;
   private csv: CsvReader | undefined;
+  private started = false;
+  /** What was noticed about the bytes (the encoding taken when none was declared). */
+  readonly notes: ReadingNote[] = [];
+
+  /** `encoding` as declared by the request; undefined: UTF-8, or Windows-1252 when the first bytes are not UTF-8. */
+  constructor(private readonly encoding?: FileEncoding) {
+    this.decoder = new TextDecoder(encoding ?? "utf-8");
+  }
 
   push(bytes: Uint8Array): void {
-    if (this.las === undefined && this.csv === undefined && this.pending === "") refuseNonText(bytes);
+    if (!this.started) {
+      this.started = true;
+      refuseNonText(bytes);
+      if (this.encoding === undefined) this.chooseEncoding(bytes);
+    }
     this.feed(this.decoder.decode(bytes, { stream: true }));
+  }
+
+  /**
+   * Older files are often in Windows-1252 or ISO-8859-1 (a µ in a unit, a degree sign in a comment), whose bytes
+   * above 0x7F are not UTF-8. When the first bytes are not UTF-8 and no charset was declared, the file is read as
+   * Windows-1252, and the answer's warnings say so.
+   */
+  private chooseEncoding(first: Uint8Array): void {
+    try {
+      new TextDecoder("utf-8", { fatal: true }).decode(first, { stream: true });
+    } catch {
+      this.decoder = new TextDecoder("windows-1252");
+      this.notes.push({
+        message: "the file is not UTF-8 text; it was read as Windows-1252 (ISO-8859-1), the usual encoding of older files. Declare the encoding with charset= in Content-Type if it is another.",
+      });
+    }
   }
 
   /** The header once the samples begin (LAS `~A`, the CSV header line read); undefined before. */
@@ -90,10 +154,10 @@ export class WellFileReader {
     }
     if (this.las !== undefined) {
       const las = this.las.end();
-      return { format: "las", las, table: las.table };
+      return { format: "las", las, table: las.table, notes: this.notes };
     }
     const csv = (this.csv as CsvReader).end();
-    return { format: "csv", csv, table: csv.table };
+    return { format: "csv", csv, table: csv.table, notes: this.notes };
   }
 
   private feed(text: string): void {
@@ -116,8 +180,8 @@ export class WellFileReader {
 }
 
 /** Reads a whole well file from a byte stream (see `WellFileReader`). */
-export const readWellFile = async (stream: AsyncIterable<Uint8Array> | Iterable<Uint8Array>): Promise<WellFile> => {
-  const reader = new WellFileReader();
+export const readWellFile = async (stream: AsyncIterable<Uint8Array> | Iterable<Uint8Array>, encoding?: FileEncoding): Promise<WellFile> => {
+  const reader = new WellFileReader(encoding);
   for await (const chunk of stream) reader.push(chunk);
   return reader.end();
 };

@@ -7,6 +7,7 @@ import type { Zone } from "../../core/index.js";
 import { convertLogs, type ZoneWithList } from "../logs-task.js";
 import { sendAnswer } from "../answer-pool.js";
 import { convertWellStream } from "../well-stream.js";
+import { declaredEncoding } from "../well-upload.js";
 import { negotiateMediaType } from "../media-negotiation.js";
 import { PROBLEM_MEDIA_TYPE, ProblemError } from "../problems.js";
 import { logsJsonResponse, logsQuery, type LogsQuery } from "../schemas/logs.js";
@@ -213,6 +214,7 @@ export default async function logsRoutes(instance: FastifyInstance, options: Log
           "The body is the file itself (LAS 2.0 of the CWLS, or RFC 4180 CSV with a header row such as DEPT[m],DTC[us/ft],DTS[us/ft],RHOB[g/cm3]),",
           "sent with any of the content types " + RAW_FILE_TYPES.join(", ") + ", or as the file part of a multipart/form-data upload.",
           "The format is recognised from the content (a LAS file begins with ~V after optional # comments).",
+          "Text is UTF-8 unless the content type declares charset= (UTF-8, US-ASCII, ISO-8859-1, Windows-1252); a file whose first bytes are not UTF-8 is read as Windows-1252, with a warning.",
           "Curves are detected from common mnemonics and units unless named; units are read from the file unless overridden.",
           "Every input row gives one output row, in input order. JSON answers add header facts, the curve mapping, warnings and zone statistics.",
           "Dynamic (log-derived) moduli are estimates, to be calibrated against core tests before engineering use.",
@@ -237,6 +239,8 @@ export default async function logsRoutes(instance: FastifyInstance, options: Log
     async (request, reply) => {
       const query = request.query;
       const format = chooseFormat(query, request.headers.accept);
+      // A multipart upload's file part is read as UTF-8, or as Windows-1252 when its first bytes are not UTF-8.
+      const encoding = request.isMultipart() ? undefined : declaredEncoding(request.headers["content-type"]);
       let zones: ZoneWithList[] | undefined = zonesFromQuery(query.zones);
       if (query.digits !== undefined && (format === "json" || format === "ndjson")) {
         throw new ProblemError("invalid-request", `digits sets how CSV and LAS answers write computed values; ${format.toUpperCase()} answers always carry full doubles.`, [
@@ -246,7 +250,7 @@ export default async function logsRoutes(instance: FastifyInstance, options: Log
       if (format !== "json") {
         if (zones !== undefined) throw new ProblemError("invalid-request", ZONES_NEED_JSON, [{ field: "query.zones", message: `not available with format ${format}` }]);
         const source = request.isMultipart() ? multipartFile(request, options.fileBodyLimitBytes) : (request.body as Readable);
-        const task = { query, format, maxSamples: options.maxSamples, byteLimit: options.fileBodyLimitBytes };
+        const task = { query, format, maxSamples: options.maxSamples, byteLimit: options.fileBodyLimitBytes, encoding };
         const pieces = convertWellStream(source, task, (summary) => app.elasticMetrics.recordConversion(summary.count, summary.flags));
         return streamAnswer(request, reply, pieces, CONTENT_TYPES[format]);
       }
@@ -263,7 +267,7 @@ export default async function logsRoutes(instance: FastifyInstance, options: Log
       } else {
         chunks = await readBytes(request.body as Readable, options.fileBodyLimitBytes);
       }
-      const task = { chunks, query, zones, maxSamples: options.maxSamples };
+      const task = { chunks, query, zones, maxSamples: options.maxSamples, encoding };
       const bytes = chunks.reduce((sum, chunk) => sum + chunk.length, 0);
       const answer = bytes <= INLINE_FILE_BYTES ? await convertLogs(task) : await app.answerPool.logs(task);
       app.elasticMetrics.recordConversion(answer.summary.count, answer.summary.flags);
