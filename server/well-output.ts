@@ -131,6 +131,19 @@ const qcLegend = (invalidMask: number): string[] => [
   "engineering decisions rest with licensed professionals under local regulations.",
 ];
 
+/**
+ * `~Other` lines with what reading the input noticed before its first sample (an ignored header line, a curve
+ * without a unit and the unit taken, the encoding taken), so that a LAS answer carries what a JSON answer's
+ * `warnings` do. Notes on the data itself (the index checks) are known only at the end, after ~A has begun.
+ */
+const readingNotes = (warnings: readonly { line?: number; message: string }[]): string[] =>
+  warnings.length === 0
+    ? []
+    : [
+        "Notes from reading the input (line numbers are the input file's):",
+        ...warnings.map((warning) => `  ${warning.line === undefined ? "" : `line ${warning.line}: `}${warning.message.replace(/[\r\n]+/g, " ")}`),
+      ];
+
 /** The options used, as ~Parameter items; `written` names curve `c` of the file as the answer's ~Curve does. */
 const optionItems = (plan: ConversionPlan, written: (c: number) => string): LasItemToWrite[] => {
   const { computation: request, curves } = plan;
@@ -237,7 +250,7 @@ const lasOutput = (header: WellHeader, plan: ConversionPlan, computed: NumberFor
           indexItems: header.format === "las" ? undefined : lasIndexItems({ ...curves[0], values: wholeIndex ?? columns[0] }, String(plan.nullValue)),
           nullValue: plan.nullValue,
           parameters: optionItems(plan, (c) => inputs[input.position(c)].mnemonic),
-          otherLines: [...qcLegend(invalidatingMask(plan.computation.keepNegativePoisson)), ...caution],
+          otherLines: [...qcLegend(invalidatingMask(plan.computation.keepNegativePoisson)), ...caution, ...readingNotes(plan.warnings)],
         });
         text.utf8(writer.begin(columns));
       }

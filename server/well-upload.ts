@@ -81,9 +81,13 @@ const refuseNonText = (first: Uint8Array): void => {
 };
 
 /** The header of a well file as far as converting its rows needs: what a streaming reader knows before the samples. */
-export type WellHeader =
+export type WellHeader = (
   | { format: "las"; header: LasHeaderView; curves: CurveInfo[]; nullValue: number | undefined }
-  | { format: "csv"; curves: CurveInfo[]; nullValue: undefined };
+  | { format: "csv"; curves: CurveInfo[]; nullValue: undefined }
+) & {
+  /** What reading the bytes and the header noticed, known before the first sample (a LAS answer lists them in ~Other). */
+  warnings: readonly ReadingNote[];
+};
 
 /**
  * Reads a well file from bytes handed over in pieces, without holding its text: bytes are decoded as UTF-8
@@ -132,9 +136,9 @@ export class WellFileReader {
   /** The header once the samples begin (LAS `~A`, the CSV header line read); undefined before. */
   header(): WellHeader | undefined {
     const las = this.las?.header();
-    if (las !== undefined) return { format: "las", header: las, curves: las.curves, nullValue: las.nullValue };
+    if (las !== undefined) return { format: "las", header: las, curves: las.curves, nullValue: las.nullValue, warnings: [...this.notes, ...las.warnings] };
     const curves = this.csv?.curves();
-    return curves === undefined ? undefined : { format: "csv", curves, nullValue: undefined };
+    return curves === undefined ? undefined : { format: "csv", curves, nullValue: undefined, warnings: this.notes };
   }
 
   /** Removes and returns the complete rows read so far (see `LasReader.takeRows`). */

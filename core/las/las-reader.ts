@@ -22,6 +22,8 @@ export interface LasHeaderView {
   curves: CurveInfo[];
   /** `~Well` NULL, when the file gives one. */
   nullValue: number | undefined;
+  /** What the header's reading noticed, by line (the data's own warnings, such as the index checks, come with `end`). */
+  warnings: readonly LasWarning[];
 }
 
 export interface LasReader {
@@ -117,6 +119,16 @@ export const createLasReader = (): LasReader => {
     section.items.push(item);
   };
 
+  const legacyWarnings = (): LasWarning[] =>
+    legacyItems.length === 0
+      ? []
+      : [
+          {
+            line: legacyItems[0].line,
+            message: `LAS 1.2 value/description swap detected in ~Well (${legacyItems.map((item) => item.mnemonic).join(", ")}): values taken from after the colon`,
+          },
+        ];
+
   const beginData = (line: number): void => {
     const curveCount = curveItemsOf(sections).length;
     if (curveCount === 0) {
@@ -125,7 +137,7 @@ export const createLasReader = (): LasReader => {
     const versionLine = sections[0].line;
     if (version === undefined) warnings.push({ line: versionLine, message: "~Version has no VERS item; read as LAS 2.0" });
     if (wrapped === undefined) warnings.push({ line: versionLine, message: "~Version has no WRAP item; read as WRAP NO" });
-    const { numbers, well } = summariseWell(sections);
+    const { numbers, well, warnings: wellWarnings } = summariseWell(sections);
     const indexCheck = createIndexCheck(numbers.STRT, numbers.STOP, numbers.STEP);
     const reader = createLasDataReader({
       curveCount,
@@ -136,7 +148,9 @@ export const createLasReader = (): LasReader => {
       },
       warn: (warningLine, message) => warnings.push({ line: warningLine, message }),
     });
-    const header = { sections, curves: curvesFromItems(curveItemsOf(sections)).curves, nullValue: well.nullValue };
+    const { curves, warnings: curveWarnings } = curvesFromItems(curveItemsOf(sections));
+    const headerWarnings = [...warnings, ...wellWarnings, ...curveWarnings, ...legacyWarnings()].sort((a, b) => a.line - b.line);
+    const header = { sections, curves, nullValue: well.nullValue, warnings: headerWarnings };
     data = { reader, indexCheck, line, header, samples: 0 };
   };
 
@@ -204,14 +218,7 @@ export const createLasReader = (): LasReader => {
     const { columns, wrapped: dataWrapped } = data.reader.finish();
     const { well, warnings: wellWarnings } = summariseWell(sections);
     const { curves, warnings: curveWarnings } = curvesFromItems(curveItemsOf(sections));
-    const allWarnings = [...warnings, ...wellWarnings, ...curveWarnings, ...data.indexCheck.finish()];
-    if (legacyItems.length > 0) {
-      const mnemonics = legacyItems.map((item) => item.mnemonic).join(", ");
-      allWarnings.push({
-        line: legacyItems[0].line,
-        message: `LAS 1.2 value/description swap detected in ~Well (${mnemonics}): values taken from after the colon`,
-      });
-    }
+    const allWarnings = [...warnings, ...wellWarnings, ...curveWarnings, ...data.indexCheck.finish(), ...legacyWarnings()];
     if (data.samples === 0) {
       throw new WellFileError("las_no_rows", "the ~A section holds no data rows (a header with no samples): add the samples after ~A", data.line);
     }
