@@ -162,8 +162,9 @@ const firstColumnAsDepth = (curves: readonly CurveInfo[]): CurveChoice | undefin
  * role's common mnemonics (see `CURVE_MNEMONICS`, ignoring case and a `:2` suffix) whose unit,
  * if recognised, measures the right thing. A recognised unit decides velocity against slowness.
  * With no depth mnemonic the first column is the depth, if free and not in a unit of another kind.
+ * A curve fills one role at most: detection passes over the curves already chosen.
  * Throws `InputIssues` (fields `vp_curve`, `vs_curve`, `rho_curve`, `depth_curve`) listing every
- * override that names no curve or a curve of the wrong kind, and every role left without a curve
+ * override that names no curve, a curve of the wrong kind or a curve another override names, and every role left without a curve
  * (except the `optional` ones, e.g. the shear role when Vs will be predicted from Vp).
  */
 export const detectCurves = (
@@ -190,6 +191,17 @@ export const detectCurves = (
         message:
           `curve ${curves[index].mnemonic} cannot be the ${ROLE_TITLES[role]}: ` +
           `its ${reading.clause}, not a ${ROLE_UNIT_KINDS[role].join(" or ")} unit`,
+      });
+      continue;
+    }
+    // One curve cannot measure two things: the same curve as Vp and Vs makes every sample Vs = Vp.
+    const other = ROLES.find((earlier) => chosen[earlier]?.index === index);
+    if (other !== undefined) {
+      issues.push({
+        field,
+        message:
+          `curve ${curves[index].mnemonic} is named for two roles, the ${ROLE_TITLES[other]} (${other}_curve) and the ` +
+          `${ROLE_TITLES[role]} (${field}); name a different curve for one of them`,
       });
       continue;
     }

@@ -18,3 +18,18 @@ export interface WellTable {
   /** Value that marks an absent sample in this file, when the file declares one. */
   nullValue: number | undefined;
 }
+
+/** The null value of a file that declares none: the usual LAS ~Well NULL (common practice). */
+export const USUAL_NULL_VALUE = -999.25;
+
+/**
+ * A column with its absent values (equal to `nullValue`, as input screening reads the other curves) as NaN, so a
+ * depth column can be echoed and zoned like any absent value; the column itself when it holds none.
+ */
+export const absentAsNaN = (column: Float64Array, nullValue: number): Float64Array => {
+  const first = column.indexOf(nullValue);
+  if (first === -1) return column;
+  const copy = column.slice();
+  for (let i = first; i < copy.length; i++) if (copy[i] === nullValue) copy[i] = NaN;
+  return copy;
+};

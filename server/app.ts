@@ -10,6 +10,7 @@ import { AnswerPool } from "./answer-pool.js";
 import { DEFAULT_CONFIG, type ServiceConfig } from "./config.js";
 import { transformObject } from "./openapi-components.js";
 import { authentication } from "./plugins/authentication.js";
+import { bodyFraming } from "./plugins/body-framing.js";
 import { clientErrorHandler } from "./plugins/client-errors.js";
 import { crossOrigin } from "./plugins/cross-origin.js";
 import { loadShedding } from "./plugins/load-shedding.js";
@@ -89,6 +90,7 @@ export async function buildApp(options: AppOptions = {}): Promise<FastifyInstanc
     maxEventLoopUtilization: config.maxEventLoopUtilization,
     retryAfterSeconds: config.retryAfterSeconds,
   });
+  await app.register(bodyFraming);
   await app.register(authentication, { apiKeys: config.apiKeys, metricsRequireAuth: config.metricsRequireAuth });
   // After authentication, whose hook then has named the request's API key; before the routes, to which it adds its hook.
   await app.register(rateLimiting, { maxRequests: config.rateLimitMax, windowMs: config.rateLimitWindowMs });

@@ -6,7 +6,7 @@ import { deriveProperties } from "./derived-request.js";
 import { answerExtras, columnsAnswer } from "./elastic-answer.js";
 import { columnsRequest, intervalMidpoints } from "./elastic-request.js";
 import { parseJsonBody } from "./json-text.js";
-import { invalidFields, ProblemError, UNKNOWN_FIELD_MESSAGE, unusableData, type ProblemFieldError } from "./problems.js";
+import { fieldPath, invalidFields, ProblemError, UNKNOWN_FIELD_MESSAGE, unusableData, type ProblemFieldError } from "./problems.js";
 import { elasticColumnFields, elasticColumnsBody, type ElasticArrowQuery } from "./schemas/elastic.js";
 import { limitFields } from "./schemas/limits.js";
 
@@ -51,10 +51,10 @@ const bodyFromArrow = (bytes: Uint8Array, query: ElasticArrowQuery): unknown => 
 /** Zod's issues in the request's own field names, worded as the app's error handler words them. */
 const fieldErrors = (error: z.ZodError): ProblemFieldError[] =>
   error.issues.flatMap((issue) => {
-    const path = ["body", ...issue.path.map(String)];
+    const path = ["body", ...issue.path.map((segment) => (typeof segment === "number" ? segment : String(segment)))];
     return issue.code === "unrecognized_keys"
-      ? issue.keys.map((key) => ({ field: [...path, key].join("."), message: UNKNOWN_FIELD_MESSAGE }))
-      : [{ field: path.join("."), message: issue.message }];
+      ? issue.keys.map((key) => ({ field: fieldPath([...path, key]), message: UNKNOWN_FIELD_MESSAGE }))
+      : [{ field: fieldPath(path), message: issue.message }];
   });
 
 /** Every Float64Array reachable through plain objects (not arrays) of the answer, in JSON order. */

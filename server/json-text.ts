@@ -25,6 +25,9 @@ const hasConstructorKey = (value: unknown): boolean => {
   return Object.hasOwn(value, "constructor") || Object.values(value).some(hasConstructorKey);
 };
 
+/** A bare NaN or Infinity where a value stands (after `[`, `,` or `:`), which JSON does not have. */
+const NON_NUMBER = /([[,:]\s*)(-?(?:NaN|Infinity))(?=\s*[,\]}])/;
+
 const FORBIDDEN_KEY = "The JSON body contains a key named __proto__ or constructor, which is refused; remove it.";
 
 export const parseJsonText = (text: string): unknown => {
@@ -35,9 +38,12 @@ export const parseJsonText = (text: string): unknown => {
   } catch (error) {
     const message = (error as Error).message;
     if (/forbidden prototype property/i.test(message)) throw new ProblemError("forbidden-key", FORBIDDEN_KEY);
-    const position = /position (\d+)/.exec(message);
-    const where = position ? ` (at ${lineAndColumn(text, Number(position[1]))})` : "";
-    throw new ProblemError("malformed-body", `The body is not valid JSON${where}: ${message}.`);
+    // NaN and Infinity are what Python's json.dumps and some other writers put for missing or huge values.
+    const nonNumber = NON_NUMBER.exec(text);
+    const position = /position (\d+)/.exec(message)?.[1] ?? (nonNumber === null ? undefined : nonNumber.index + nonNumber[1].length);
+    const where = position === undefined ? "" : ` (at ${lineAndColumn(text, Number(position))})`;
+    const hint = nonNumber === null ? "" : ` ${nonNumber[2]} is not a JSON number (RFC 8259 §6): write null for an absent value.`;
+    throw new ProblemError("malformed-body", `The body is not valid JSON${where}: ${message}.${hint}`);
   }
   // The walk runs only when the text names the key at all, so column bodies of numbers pay one substring search.
   if (text.includes('"constructor"') && hasConstructorKey(value)) throw new ProblemError("forbidden-key", FORBIDDEN_KEY);

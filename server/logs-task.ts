@@ -42,7 +42,7 @@ export const correlationIds = (query: LogsQuery): string[] | undefined =>
 export const convertLogs = async (task: LogsTask): Promise<LogsResult> => {
   const { query, zones } = task;
   try {
-    const file = await readWellFile(task.chunks, task.encoding);
+    const file = await readWellFile(task.chunks, { encoding: task.encoding, nullValue: query.null_value });
     const rows = file.table.columns[0]?.length ?? 0;
     if (rows > task.maxSamples) {
       throw new ProblemError("too-many-samples", `The file has ${rows} samples; at most ${task.maxSamples} are accepted in one request. Split the well.`);

@@ -1,9 +1,11 @@
 import {
+  absentAsNaN,
   acceptedSpellings,
   computeElasticLog,
   detectCurves,
   InputIssues,
   normaliseUnit,
+  USUAL_NULL_VALUE,
   type CurveMapping,
   type CurveInfo,
   type CurveOverrides,
@@ -56,11 +58,13 @@ const ROLE_KINDS: Record<Role, readonly UnitKind[]> = {
   depth: ["depth"],
 };
 const ASSUMED: Record<UnitKind, string> = { slowness: "us/ft", velocity: "m/s", density: "g/cm3", depth: "m" };
-const DEFAULT_NULL_VALUE = -999.25;
 
 const spellings = (role: Role) => ROLE_KINDS[role].flatMap((kind) => acceptedSpellings(kind)).join(", ");
 
-/** The unit of a chosen curve: the query's override, else the file's, else the usual unit of its measure (with a warning). */
+/**
+ * The unit of a chosen curve: the query's override (with a warning when the file gives the curve another), else the
+ * file's, else the usual unit of its measure (with a warning).
+ */
 const resolveRole = (
   role: Role,
   choice: CurveMapping[Role] & object,
@@ -74,6 +78,11 @@ const resolveRole = (
       throw new ProblemError("invalid-request", `${role}_unit "${override}" is not a unit for this curve.`, [
         { field: `query.${role}_unit`, message: `accepted: ${spellings(role)}` },
       ]);
+    }
+    const written = choice.unitAsWritten.trim();
+    if (written !== "" && choice.unit !== unit.unit) {
+      const kinds = choice.unit !== undefined && choice.measure !== unit.kind ? `; the curve is read as a ${unit.kind}, not a ${choice.measure}` : "";
+      warnings.push({ message: `${role}_unit ${unit.unit} overrides the unit ${written} that the file gives curve ${choice.mnemonic}${kinds}` });
     }
     return { ...base, measure: unit.kind, unit: unit.unit, unit_source: "query" };
   }
@@ -127,7 +136,7 @@ export const planConversion = (
   const vs = mapping.vs && resolveRole("vs", mapping.vs, options.units.vs, warnings);
   const rho = mapping.rho && resolveRole("rho", mapping.rho, options.units.rho, warnings);
   const depth = mapping.depth && resolveRole("depth", mapping.depth, options.units.depth, warnings);
-  const nullValue = options.nullValue ?? header.nullValue ?? DEFAULT_NULL_VALUE;
+  const nullValue = options.nullValue ?? header.nullValue ?? USUAL_NULL_VALUE;
   if (!vs) warnings.push({ message: `no shear curve: Vs of every sample is predicted by ${options.fillShear?.correlation.id}` });
   if (!rho) warnings.push({ message: `no density curve: bulk density of every sample is predicted by ${options.fillDensity?.correlation.id}` });
   const { curves: _curves, units: _units, nullValue: _nullValue, ...computation } = options;
@@ -163,7 +172,8 @@ export const convertWell = (file: WellFile, options: ConversionOptions): WellCon
     request,
     log: computeElasticLog(request),
     curves: plan.curves,
-    depth: depth && file.table.columns[depth.index],
+    // An absent depth (the null value) is NaN, as an absent value of the other curves is to the computation.
+    depth: depth && absentAsNaN(file.table.columns[depth.index], plan.nullValue),
     depthUnit: plan.depthUnit,
     nullValue: plan.nullValue,
     warnings: plan.warnings,

@@ -1,5 +1,5 @@
 import { setImmediate } from "node:timers/promises";
-import { AsciiText, computeElasticLog, type FlagSummary, summariseFlags } from "../core/index.js";
+import { absentAsNaN, AsciiText, computeElasticLog, type FlagSummary, summariseFlags } from "../core/index.js";
 import { deriveProperties } from "./derived-request.js";
 import { asFileProblem, conversionOptions, correlationIds } from "./logs-task.js";
 import { ProblemError } from "./problems.js";
@@ -53,7 +53,7 @@ export async function* convertWellStream(source: AsyncIterable<Uint8Array>, task
   const { query, format } = task;
   const options = conversionOptions(query);
   const ids = correlationIds(query);
-  const reader = new WellFileReader(task.encoding);
+  const reader = new WellFileReader({ encoding: task.encoding, nullValue: query.null_value });
   const text = new AsciiText(1 << 20);
   const summary: FlagSummary = { count: 0, valid: 0, flags: {} };
   let setup: { plan: ConversionPlan; output: WellOutput; curveCount: number } | undefined;
@@ -97,6 +97,8 @@ export async function* convertWellStream(source: AsyncIterable<Uint8Array>, task
     const columns = held.length === 0 ? Array.from({ length: curveCount }, () => new Float64Array(0)) : takeHeld(count);
     const log = computeElasticLog(requestForRows(plan, columns));
     const depthIndex = plan.curves.depth?.index;
+    // An absent depth is written as any absent value is (the null value in LAS, an empty cell in CSV, null in NDJSON).
+    if (depthIndex !== undefined) columns[depthIndex] = absentAsNaN(columns[depthIndex], plan.nullValue);
     const depth = depthIndex === undefined ? undefined : columns[depthIndex];
     const derived = deriveProperties(log, { correlations: ids }, "query");
     mergeSummary(summary, summariseFlags(log.flags, log.invalidMask));
@@ -131,9 +133,12 @@ export async function* convertWellStream(source: AsyncIterable<Uint8Array>, task
     // A file read to its end without error has its header (LAS ~A reached, CSV header line read).
     if (setup === undefined) begin(reader.header() as WellHeader);
     hold(file.table.columns);
-    const { output } = setup as NonNullable<typeof setup>;
+    const { output, plan } = setup as NonNullable<typeof setup>;
     // A held curve joined whole on request (the index, for STRT, STOP and STEP); the rows go on in batches below.
-    output.wholeFile?.(heldRows, (c) => (heldRows === 0 ? new Float64Array(0) : joinRows(held.map((rows) => [rows[c]]), heldRows)[0]));
+    output.wholeFile?.(heldRows, (c) => {
+      const column = heldRows === 0 ? new Float64Array(0) : joinRows(held.map((rows) => [rows[c]]), heldRows)[0];
+      return c === plan.curves.depth?.index ? absentAsNaN(column, plan.nullValue) : column;
+    });
     while (heldRows > 0) {
       yield convert(BATCH_ROWS);
       await setImmediate();

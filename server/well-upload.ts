@@ -41,12 +41,18 @@ const CHARSETS: Readonly<Record<string, FileEncoding>> = {
  * takes UTF-8, or Windows-1252 when the first bytes are not UTF-8). An encoding it cannot read is a 415.
  */
 export const declaredEncoding = (contentType: string | undefined): FileEncoding | undefined => {
-  const match = /;\s*charset\s*=\s*"?([^";\s]+)"?/i.exec(contentType ?? "");
-  if (match === null) return undefined;
-  const encoding = CHARSETS[match[1].toLowerCase()];
-  if (encoding === undefined) {
-    throw new ProblemError("unsupported-media-type", `charset=${match[1]} is not read here: send the file as UTF-8 (or US-ASCII), or as ISO-8859-1 / Windows-1252 and say so with charset=iso-8859-1.`);
-  }
+  // A parameter value is a token or a quoted string (RFC 9110 §5.6.6); an unterminated quote is neither.
+  const values = [...(contentType ?? "").matchAll(/;\s*charset\s*=\s*("[^"]*"|[^;\s]*)/gi)].map((match) => match[1]);
+  if (values.length === 0) return undefined;
+  const refuse = (why: string) =>
+    new ProblemError("unsupported-media-type", `${why}: declare one charset, UTF-8 (or US-ASCII), ISO-8859-1 or Windows-1252, e.g. text/csv; charset=utf-8, or none for UTF-8.`);
+  if (values.length > 1) throw refuse(`The Content-Type declares charset ${values.length} times (${values.join(", ")})`);
+  const quoted = values[0].startsWith('"');
+  if (quoted && !(values[0].length >= 2 && values[0].endsWith('"'))) throw refuse(`The charset ${values[0]} opens a quote it does not close`);
+  const label = quoted ? values[0].slice(1, -1) : values[0];
+  if (label.trim() === "") throw refuse("The Content-Type has an empty charset=");
+  const encoding = CHARSETS[label.toLowerCase()];
+  if (encoding === undefined) throw refuse(`charset=${label} is not read here`);
   return encoding;
 };
 
@@ -103,9 +109,17 @@ export class WellFileReader {
   /** What was noticed about the bytes (the encoding taken when none was declared). */
   readonly notes: ReadingNote[] = [];
 
-  /** `encoding` as declared by the request; undefined: UTF-8, or Windows-1252 when the first bytes are not UTF-8. */
-  constructor(private readonly encoding?: FileEncoding) {
-    this.decoder = new TextDecoder(encoding ?? "utf-8");
+  private readonly encoding: FileEncoding | undefined;
+  private readonly nullValue: number | undefined;
+
+  /**
+   * `encoding` as declared by the request (undefined: UTF-8, or Windows-1252 when the first bytes are not UTF-8);
+   * `nullValue` as the request gives it (undefined: the file's own NULL, else the usual -999.25).
+   */
+  constructor(options: { encoding?: FileEncoding; nullValue?: number } = {}) {
+    this.encoding = options.encoding;
+    this.nullValue = options.nullValue;
+    this.decoder = new TextDecoder(options.encoding ?? "utf-8");
   }
 
   push(bytes: Uint8Array): void {
@@ -176,7 +190,7 @@ export class WellFileReader {
     }
     const format = sniffFormat(this.pending);
     if (format === undefined) return;
-    if (format === "las") this.las = createLasReader();
+    if (format === "las") this.las = createLasReader(this.nullValue === undefined ? {} : { nullValue: this.nullValue });
     else this.csv = createCsvReader();
     (this.las ?? this.csv)?.push(this.pending);
     this.pending = "";
@@ -184,8 +198,11 @@ export class WellFileReader {
 }
 
 /** Reads a whole well file from a byte stream (see `WellFileReader`). */
-export const readWellFile = async (stream: AsyncIterable<Uint8Array> | Iterable<Uint8Array>, encoding?: FileEncoding): Promise<WellFile> => {
-  const reader = new WellFileReader(encoding);
+export const readWellFile = async (
+  stream: AsyncIterable<Uint8Array> | Iterable<Uint8Array>,
+  options: { encoding?: FileEncoding; nullValue?: number } = {},
+): Promise<WellFile> => {
+  const reader = new WellFileReader(options);
   for await (const chunk of stream) reader.push(chunk);
   return reader.end();
 };

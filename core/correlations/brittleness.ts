@@ -1,11 +1,12 @@
-import type { InputIssue } from "../input-issues.js";
 import { defineCorrelation, type ResolvedOptions } from "./define-correlation.js";
+import { ISOTROPIC_POISSONS_RATIO, POSITIVE_MODULUS } from "./option-range.js";
 
+// Each pair bounds a span the index divides by: the lower one is declared `below` the upper one.
 const OPTIONS = [
-  { name: "e_min_mpsi", unit: "Mpsi", defaultValue: 1, description: "Static Young's modulus of the most ductile rock (brittleness 0 on the modulus term)." },
-  { name: "e_max_mpsi", unit: "Mpsi", defaultValue: 8, description: "Static Young's modulus of the most brittle rock (brittleness 100 on the modulus term)." },
-  { name: "nu_min", unit: "1", defaultValue: 0.15, description: "Poisson's ratio of the most brittle rock (brittleness 100 on the ratio term)." },
-  { name: "nu_max", unit: "1", defaultValue: 0.4, description: "Poisson's ratio of the most ductile rock (brittleness 0 on the ratio term)." },
+  { name: "e_min_mpsi", unit: "Mpsi", defaultValue: 1, accepted: POSITIVE_MODULUS, below: "e_max_mpsi", description: "Static Young's modulus of the most ductile rock (brittleness 0 on the modulus term)." },
+  { name: "e_max_mpsi", unit: "Mpsi", defaultValue: 8, accepted: POSITIVE_MODULUS, description: "Static Young's modulus of the most brittle rock (brittleness 100 on the modulus term)." },
+  { name: "nu_min", unit: "1", defaultValue: 0.15, accepted: ISOTROPIC_POISSONS_RATIO, below: "nu_max", description: "Poisson's ratio of the most brittle rock (brittleness 100 on the ratio term)." },
+  { name: "nu_max", unit: "1", defaultValue: 0.4, accepted: ISOTROPIC_POISSONS_RATIO, description: "Poisson's ratio of the most ductile rock (brittleness 0 on the ratio term)." },
 ] as const;
 
 const boundsOf = (o: ResolvedOptions) => ({
@@ -14,14 +15,6 @@ const boundsOf = (o: ResolvedOptions) => ({
   nuMin: o.nu_min,
   nuMax: o.nu_max,
 });
-
-const checkBounds = (o: ResolvedOptions): InputIssue[] => {
-  const { eMin, eMax, nuMin, nuMax } = boundsOf(o);
-  const issues: InputIssue[] = [];
-  if (!(eMin < eMax)) issues.push({ field: "e_max_mpsi", message: `must exceed e_min_mpsi (${eMin})` });
-  if (!(nuMin < nuMax)) issues.push({ field: "nu_max", message: `must exceed nu_min (${nuMin})` });
-  return issues;
-};
 
 // Rickman et al. (2008), SPE 115258: BI = 50·((E − Emin)/(Emax − Emin) + (νmax − ν)/(νmax − νmin)), E in Mpsi, BI in %.
 export const rickman2008 = defineCorrelation({
@@ -55,5 +48,4 @@ export const rickman2008 = defineCorrelation({
       { min: nuMin, max: nuMax },
     ];
   },
-  checkOptions: checkBounds,
 });

@@ -1,4 +1,5 @@
 import type { CalibrationRange } from "./calibration-range.js";
+import type { OptionRange } from "./option-range.js";
 import type { OutputUnit, PublishedOutputUnit, PublishedUnitsOf } from "./published-units.js";
 
 /** What a correlation predicts. */
@@ -71,6 +72,10 @@ export interface CorrelationOption {
   readonly unit: string;
   readonly defaultValue: number;
   readonly description: string;
+  /** Values a request may give; anything else is refused. */
+  readonly accepted: OptionRange;
+  /** The option this one is the lower bound of: after defaults it must stay below it by MIN_RELATIVE_SPAN. */
+  readonly below?: string;
 }
 
 /** Option values by name; an option left out (or undefined) takes its default. */

@@ -44,7 +44,8 @@ const lineEnd = (text: string, from: number, quoteAware: boolean): number => {
   return -1;
 };
 
-const quote = (value: string): string => JSON.stringify(value.length > 40 ? `${value.slice(0, 40)}…` : value);
+const shorten = (value: string): string => (value.length > 40 ? `${value.slice(0, 40)}…` : value);
+const quote = (value: string): string => JSON.stringify(shorten(value));
 
 /** Fills growable columns from data records, one value per field, checking each row's width. */
 class ColumnSink implements CsvRecordSink {
@@ -53,6 +54,12 @@ class ColumnSink implements CsvRecordSink {
   rows = 0;
   private untaken = 0;
   private column = 0;
+  /** The first row's cells, kept while it is read: a row without a number may be a row of units, and is told so. */
+  private firstRow: { cells: string[]; numbers: number; bad: { text: string; column: number; line: number } | undefined } | undefined = {
+    cells: [],
+    numbers: 0,
+    bad: undefined,
+  };
 
   constructor(readonly curves: CurveInfo[]) {
     this.columns = curves.map(() => new GrowableColumn());
@@ -62,18 +69,54 @@ class ColumnSink implements CsvRecordSink {
     const column = this.column++;
     if (column >= this.columns.length) return;
     const value = readCsvNumber(text);
-    if (value === undefined) {
-      throw new WellFileError(
-        "csv_not_a_number",
-        `the value ${quote(text)} in column ${this.curves[column].mnemonic} is not a number ` +
-          "(write an empty cell, NA or NaN for a missing value)",
-        line,
-      );
+    if (this.firstRow !== undefined) {
+      this.firstRow.cells.push(text);
+      if (value === undefined) this.firstRow.bad ??= { text, column, line };
+      else if (!Number.isNaN(value)) this.firstRow.numbers++;
+      this.columns[column].push(value ?? NaN);
+      return;
     }
+    if (value === undefined) throw this.notANumber(text, column, line);
     this.columns[column].push(value);
   }
 
+  private notANumber(text: string, column: number, line: number): WellFileError {
+    return new WellFileError(
+      "csv_not_a_number",
+      `the value ${quote(text)} in column ${this.curves[column].mnemonic} is not a number ` +
+        "(write an empty cell, NA or NaN for a missing value)",
+      line,
+    );
+  }
+
+  /**
+   * A first data row with a cell that is not a number and no number in any cell, such as `m,us/ft,us/ft,g/cm3`, is
+   * taken for a row of units (a common export layout) and refused with the header that would carry them.
+   */
+  private checkFirstRow(): void {
+    const first = this.firstRow;
+    this.firstRow = undefined;
+    if (first?.bad === undefined) return;
+    if (first.numbers > 0) throw this.notANumber(first.bad.text, first.bad.column, first.bad.line);
+    const shown = Math.min(this.curves.length, 6);
+    const header = this.curves
+      .slice(0, shown)
+      .map((curve, c) => {
+        const unit = (first.cells[c] ?? "").trim();
+        return unit === "" || readCsvNumber(unit) !== undefined ? curve.mnemonic : `${curve.mnemonic}[${shorten(unit)}]`;
+      })
+      .join(",");
+    throw new WellFileError(
+      "csv_units_row",
+      `the first data row (${first.cells.slice(0, shown).map(quote).join(", ")}${this.curves.length > shown ? ", …" : ""}) holds no number: ` +
+        `it looks like a row of units. Put the units in the header line instead, e.g. ${header}${this.curves.length > shown ? ",…" : ""} ` +
+        "(also NAME [unit] or NAME (unit)), and delete this row",
+      first.bad.line,
+    );
+  }
+
   endRecord(line: number): void {
+    if (this.firstRow !== undefined) this.checkFirstRow();
     if (this.column !== this.columns.length) {
       throw new WellFileError(
         "csv_ragged_row",

@@ -23,6 +23,10 @@ export const lasUnit = (unit: string): string => unit.replace(/\s/gu, "_");
 /** Text as a JSON string with its colons escaped, which a description can carry whole (a colon would end the value field). */
 const quoted = (text: string): string => JSON.stringify(text).replaceAll(":", "\\u003a");
 
+/** A description with the name an item had in the input noted after it: `BIT SIZE; INPUT NAME "BS"`. */
+export const withInputName = (description: string, name: string): string =>
+  [description, `INPUT NAME ${quoted(name)}`].filter((note) => note !== "").join("; ");
+
 /**
  * `~Curve` names for curves named anyhow: mnemonics made valid (`lasMnemonic`) and unique without regard to case
  * by `_2`, `_3` … (`reserved` names are never taken: the service's own curves keep theirs; a valid name is kept

@@ -23,11 +23,17 @@ export interface LasDataReaderOptions {
   warn: (line: number, message: string) => void;
 }
 
+/** NaN as some programs write it (`NaN`, `nan`, `-nan`): read as an absent value, with a warning. */
+const NOT_A_NUMBER = /^[+-]?nan$/i;
+
+const values = (count: number): string => `${count} value${count === 1 ? "" : "s"}`;
+
 /**
  * Reads the `~A` section line by line into one growable column per curve (CWLS LAS 2.0, Appendix 1
  * Part 4, ~A): with WRAP NO each line is one sample; with WRAP YES a sample runs over as many lines
  * as it needs, each sample starting on a new line. A WRAP NO file whose first data line is short is
- * read as wrapped, with a warning, as long as its samples then end at line ends.
+ * read as wrapped, with a warning, as long as its samples then end at line ends. `NaN` is read as an
+ * absent value (NaN), with one warning for the file, since LAS 2.0 marks absent values with the ~Well NULL.
  */
 export const createLasDataReader = (options: LasDataReaderOptions): LasDataReader => {
   const { curveCount, onSample, warn } = options;
@@ -37,6 +43,9 @@ export const createLasDataReader = (options: LasDataReaderOptions): LasDataReade
   let filled = 0;
   let sampleLine = 0;
   let sampleIndex = NaN;
+  let samples = 0;
+  let firstLine: { line: number; count: number } | undefined;
+  const nans = { count: 0, line: 0 };
 
   const readValues = (text: string, lineNumber: number): number => {
     let count = 0;
@@ -47,7 +56,11 @@ export const createLasDataReader = (options: LasDataReaderOptions): LasDataReade
       const start = i;
       while (i < text.length && text.charCodeAt(i) > 32) i++;
       const token = text.slice(start, i);
-      const value = parseLasNumber(token);
+      let value = parseLasNumber(token);
+      if (value === undefined && NOT_A_NUMBER.test(token)) {
+        if (nans.count++ === 0) nans.line = lineNumber;
+        value = NaN;
+      }
       if (value === undefined) {
         throw new WellFileError("las_invalid_number", `${JSON.stringify(token)} in ~A is not a number`, lineNumber);
       }
@@ -61,42 +74,53 @@ export const createLasDataReader = (options: LasDataReaderOptions): LasDataReade
     return count;
   };
 
+  /** A data line of a WRAP NO file whose count of values is not the count of curves. */
+  const unwrappedLineError = (count: number, lineNumber: number): WellFileError =>
+    count > curveCount
+      ? new WellFileError("las_too_many_values", `${values(count)} on a data line but ~Curve describes ${curveCount} curves`, lineNumber)
+      : new WellFileError("las_too_few_values", `${values(count)} on a data line but ~Curve describes ${curveCount} curves (the file says WRAP NO)`, lineNumber);
+
   const readUnwrapped = (count: number, lineNumber: number): void => {
-    if (count > curveCount) {
-      throw new WellFileError(
-        "las_too_many_values",
-        `${count} values on a data line but ~Curve describes ${curveCount} curves`,
-        lineNumber,
-      );
-    }
-    if (count < curveCount) {
-      throw new WellFileError(
-        "las_too_few_values",
-        `${count} values on a data line but ~Curve describes ${curveCount} curves (the file says WRAP NO)`,
-        lineNumber,
-      );
-    }
+    if (count !== curveCount) throw unwrappedLineError(count, lineNumber);
     for (let c = 0; c < curveCount; c++) columns[c].push(lineValues[c]);
+    samples++;
     onSample(lineValues[0], lineNumber);
   };
 
+  /**
+   * Values running past the end of a sample. In a file that says WRAP NO and was read as wrapped from its short first
+   * line, this is told in the file's own terms: the first line is short when no sample ended before this line.
+   */
+  const pastSampleEnd = (count: number, lineNumber: number, samplesBefore: number): WellFileError => {
+    if (!options.wrapped && firstLine !== undefined) {
+      if (samplesBefore === 0) return unwrappedLineError(firstLine.count, firstLine.line);
+      return new WellFileError(
+        "las_too_many_values",
+        `${values(count)} on a data line but ~Curve describes ${curveCount} curves, running past the end of the sample begun at line ${sampleLine}; ` +
+          `the file says WRAP NO, but its first data line (line ${firstLine.line}) held only ${values(firstLine.count)}, so it was read as wrapped`,
+        lineNumber,
+      );
+    }
+    return new WellFileError(
+      "las_too_many_values",
+      `values continue past the end of the sample begun at line ${sampleLine} (${curveCount} curves); ` +
+        "in wrapped data each sample starts on a new line",
+      lineNumber,
+    );
+  };
+
   const readWrapped = (count: number, lineNumber: number): void => {
+    const samplesBefore = samples;
     for (let v = 0; v < count; v++) {
       if (filled === 0) {
-        if (v > 0) {
-          throw new WellFileError(
-            "las_too_many_values",
-            `values continue past the end of the sample begun at line ${sampleLine} (${curveCount} curves); ` +
-              "in wrapped data each sample starts on a new line",
-            lineNumber,
-          );
-        }
+        if (v > 0) throw pastSampleEnd(count, lineNumber, samplesBefore);
         sampleLine = lineNumber;
         sampleIndex = lineValues[v];
       }
       columns[filled++].push(lineValues[v]);
       if (filled === curveCount) {
         filled = 0;
+        samples++;
         onSample(sampleIndex, sampleLine);
       }
     }
@@ -108,6 +132,7 @@ export const createLasDataReader = (options: LasDataReaderOptions): LasDataReade
     if (wrapped === undefined) {
       wrapped = count < curveCount;
       if (wrapped) {
+        firstLine = { line: lineNumber, count };
         warn(
           lineNumber,
           `the file says WRAP NO but its first data line holds ${count} of ${curveCount} values; read as wrapped data`,
@@ -120,11 +145,16 @@ export const createLasDataReader = (options: LasDataReaderOptions): LasDataReade
 
   const finish = (): { columns: Float64Array[]; wrapped: boolean } => {
     if (filled > 0) {
+      if (!options.wrapped && firstLine !== undefined && samples === 0) throw unwrappedLineError(firstLine.count, firstLine.line);
       throw new WellFileError(
         "las_incomplete_sample",
         `the last sample, begun at line ${sampleLine}, has ${filled} of ${curveCount} values`,
         sampleLine,
       );
+    }
+    if (nans.count > 0) {
+      const more = nans.count > 1 ? ` (and ${nans.count - 1} more)` : "";
+      warn(nans.line, `NaN in ~A read as an absent value${more}; LAS 2.0 marks an absent value with the ~Well NULL value instead`);
     }
     return { columns: columns.map((column) => column.toFloat64Array()), wrapped: wrapped ?? false };
   };

@@ -1,4 +1,6 @@
-import type { LasSection } from "./las-document.js";
+import { uniqueMnemonics } from "../unique-mnemonics.js";
+import { withInputName } from "./las-curve-names.js";
+import { isItemSection, type LasSection } from "./las-document.js";
 import { parseLasHeaderLine } from "./las-header-line.js";
 import { parseLasNumber } from "./las-number.js";
 
@@ -94,6 +96,28 @@ const textLines = (lines: readonly string[]): string[] =>
     return line;
   });
 
+/**
+ * The input's ~Parameter items with those named like an added parameter (EL_NEG_PR of an answer sent back in) renamed
+ * `_2`, `_3` … as curves are, unique among all parameters, the original name in the description: two items of one
+ * name would contradict each other. Their values are kept; the other items are left as they are.
+ */
+const parametersBeside = (header: LasHeaderToWrite): ((items: readonly LasItemToWrite[]) => LasItemToWrite[]) => {
+  const added = new Set(header.parameters.map((item) => item.mnemonic.trim().toUpperCase()));
+  const inputs = header.sections.flatMap((section) => (isItemSection(section) && section.kind === "parameter" ? section.items : []));
+  const clashing = inputs.filter((item) => added.has(item.mnemonic.toUpperCase()));
+  const others = inputs.filter((item) => !added.has(item.mnemonic.toUpperCase())).map((item) => item.mnemonic);
+  const names = uniqueMnemonics(
+    clashing.map((item) => item.mnemonic),
+    { separator: "_", reserved: [...added, ...others] },
+  );
+  const renamed = new Map<LasItemToWrite, string>(clashing.map((item, i) => [item, names[i]]));
+  return (items) =>
+    items.map((item) => {
+      const mnemonic = renamed.get(item);
+      return mnemonic === undefined ? item : { ...item, mnemonic, description: withInputName(item.description ?? "", item.mnemonic) };
+    });
+};
+
 type Slot = { kind: Exclude<LasSection["kind"], "data">; title: string; source?: LasSection };
 
 const DEFAULT_TITLES = {
@@ -146,12 +170,14 @@ const newWellItems = (header: LasHeaderToWrite): LasItemToWrite[] => [
  * The header of a LAS 2.0 file, one string per line: the original sections in their order with
  * `~Version` set to VERS 2.0 / WRAP NO, `~Well` NULL set to the null value written, `~Curve`
  * rewritten for the curves written, extra parameters and other lines appended to the first
- * `~Parameter` and `~Other`; sections a valid file needs (CWLS LAS 2.0, Appendix 1 Part 2) and
- * the original lacks are added. A second `~Version` or `~Curve` is left out.
+ * `~Parameter` and `~Other` (an input parameter of an added one's name renamed, see `parametersBeside`);
+ * sections a valid file needs (CWLS LAS 2.0, Appendix 1 Part 2) and the original lacks are added.
+ * A second `~Version` or `~Curve` is left out.
  */
 export const writeLasHeader = (header: LasHeaderToWrite): string[] => {
   const seen = new Set<Slot["kind"]>();
   const lines: string[] = [];
+  const inputParameters = parametersBeside(header);
   for (const slot of slotsFor(header)) {
     const first = !seen.has(slot.kind);
     seen.add(slot.kind);
@@ -173,7 +199,7 @@ export const writeLasHeader = (header: LasHeaderToWrite): string[] => {
         if (first) body = itemLines(header.curves);
         break;
       case "parameter":
-        body = itemLines(first ? [...items, ...header.parameters] : items);
+        body = itemLines(first ? [...inputParameters(items), ...header.parameters] : inputParameters(items));
         break;
       case "other":
         body = first ? [...kept, ...textLines(header.otherLines)] : kept;

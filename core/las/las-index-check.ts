@@ -7,7 +7,7 @@ export interface LasNumberItem {
 }
 
 export interface LasIndexCheck {
-  /** Takes the index value of each sample, in file order, with the line where the sample begins. */
+  /** Takes the index value of each sample, in file order, with the line where the sample begins; an absent one is passed over. */
   sample(index: number, line: number): void;
   finish(): LasWarning[];
 }
@@ -33,19 +33,27 @@ const tally = () => {
 /**
  * Compares the index (first curve) with STRT, STOP and STEP of `~Well` (CWLS LAS 2.0, Appendix 1
  * Part 4, ~W: STEP negative when STRT > STOP, zero for a variable step). Mismatches are warnings;
- * the samples are kept as written.
+ * the samples are kept as written. An absent index (NaN, or equal to `nullValue`) is no depth: it is passed over,
+ * no step is measured across it, and a warning counts such samples.
  */
-export const createIndexCheck = (start: LasNumberItem, stop: LasNumberItem, step: LasNumberItem): LasIndexCheck => {
+export const createIndexCheck = (start: LasNumberItem, stop: LasNumberItem, step: LasNumberItem, nullValue?: number): LasIndexCheck => {
   const stepValue = step.value;
   const tolerance = Math.abs(stepValue ?? 0) * 1e-3 || 1e-6;
   const stepMismatch = tally();
   const directionChange = tally();
+  const absent = tally();
   let previous: number | undefined;
   let direction = 0;
   let first: { index: number; line: number } | undefined;
   let last: { index: number; line: number } | undefined;
 
   const sample = (index: number, line: number): void => {
+    if (Number.isNaN(index) || index === nullValue) {
+      absent.add(line, () => "the index (first curve) of this sample is absent (the null value or NaN)");
+      // No step is measured across it.
+      previous = undefined;
+      return;
+    }
     if (first === undefined) first = { index, line };
     last = { index, line };
     if (previous !== undefined) {
@@ -95,7 +103,7 @@ export const createIndexCheck = (start: LasNumberItem, stop: LasNumberItem, step
     return warnings;
   };
 
-  const finish = (): LasWarning[] => [...headerWarnings(), ...stepMismatch.warning(), ...directionChange.warning()];
+  const finish = (): LasWarning[] => [...headerWarnings(), ...absent.warning(), ...stepMismatch.warning(), ...directionChange.warning()];
 
   return { sample, finish };
 };

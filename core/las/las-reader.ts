@@ -1,5 +1,5 @@
 import { WellFileError } from "../well-file-error.js";
-import type { CurveInfo } from "../well-table.js";
+import { USUAL_NULL_VALUE, type CurveInfo } from "../well-table.js";
 import { curvesFromItems } from "./las-curves.js";
 import { createLasDataReader, type LasDataReader } from "./las-data-reader.js";
 import {
@@ -40,6 +40,11 @@ export interface LasReader {
   end(): LasDocument;
 }
 
+export interface LasReaderOptions {
+  /** The value marking an absent sample when the caller overrides the file's NULL (a request's null value). */
+  nullValue?: number;
+}
+
 /** Only the first letter after the tilde names a section (CWLS LAS 2.0, Appendix 1 Part 3, "~"). */
 const SECTION_KINDS: Record<string, LasSection["kind"]> = {
   V: "version",
@@ -63,7 +68,7 @@ const firstNonBlank = (text: string): number => {
  * Reads a LAS 1.2 or 2.0 file handed over in chunks. Header lines are kept; samples go straight
  * into one Float64Array per curve, so the whole text is never held.
  */
-export const createLasReader = (): LasReader => {
+export const createLasReader = (options: LasReaderOptions = {}): LasReader => {
   const sections: LasSection[] = [];
   const warnings: LasWarning[] = [];
   let current: LasSection | undefined;
@@ -138,7 +143,8 @@ export const createLasReader = (): LasReader => {
     if (version === undefined) warnings.push({ line: versionLine, message: "~Version has no VERS item; read as LAS 2.0" });
     if (wrapped === undefined) warnings.push({ line: versionLine, message: "~Version has no WRAP item; read as WRAP NO" });
     const { numbers, well, warnings: wellWarnings } = summariseWell(sections);
-    const indexCheck = createIndexCheck(numbers.STRT, numbers.STOP, numbers.STEP);
+    // An absent depth is no depth: the index checks pass it over, as the conversion does.
+    const indexCheck = createIndexCheck(numbers.STRT, numbers.STOP, numbers.STEP, options.nullValue ?? well.nullValue ?? USUAL_NULL_VALUE);
     const reader = createLasDataReader({
       curveCount,
       wrapped: wrapped ?? false,
@@ -239,8 +245,8 @@ export const createLasReader = (): LasReader => {
 };
 
 /** Reads a whole LAS text at once (see `createLasReader`). */
-export const parseLas = (text: string): LasDocument => {
-  const reader = createLasReader();
+export const parseLas = (text: string, options?: LasReaderOptions): LasDocument => {
+  const reader = createLasReader(options);
   reader.push(text);
   return reader.end();
 };

@@ -4,6 +4,7 @@ import { isInputIssues } from "../../core/index.js";
 import {
   PROBLEM_MEDIA_TYPE,
   UNKNOWN_FIELD_MESSAGE,
+  fieldPath,
   invalidFields,
   isProblemError,
   unusableData,
@@ -35,13 +36,14 @@ const repeatedParameterMessage = (query: unknown, name: string | undefined): str
 const validationErrors = (error: FastifyError, request: FastifyRequest): ProblemFieldError[] => {
   const context = CONTEXT_NAMES[error.validationContext ?? "body"] ?? "body";
   return (error.validation ?? []).flatMap((issue) => {
-    const names = issue.instancePath.split("/").filter(Boolean);
+    // JSON Pointer segments (RFC 6901 §4: ~1 is "/", ~0 is "~").
+    const names = issue.instancePath.split("/").filter(Boolean).map((name) => name.replaceAll("~1", "/").replaceAll("~0", "~"));
     const path = [context, ...names];
     const keys = (issue.params as { keys?: string[] }).keys;
     const repeated = context === "query" && names.length === 1 ? repeatedParameterMessage(request.query, names[0]) : undefined;
     return keys === undefined
-      ? [{ field: path.join("."), message: repeated ?? issue.message ?? "is not valid" }]
-      : keys.map((key) => ({ field: [...path, key].join("."), message: UNKNOWN_FIELD_MESSAGE }));
+      ? [{ field: fieldPath(path), message: repeated ?? issue.message ?? "is not valid" }]
+      : keys.map((key) => ({ field: fieldPath([...path, key]), message: UNKNOWN_FIELD_MESSAGE }));
   });
 };
 
@@ -102,6 +104,10 @@ export const installProblemHandlers = (
       return send(reply, slug, `The body is larger than this endpoint's limit of ${limits.bodyLimitBytes} bytes. Send fewer samples per request, or ask the operator to raise JSON_BODY_LIMIT_BYTES.`);
     }
     if (slug !== undefined) return send(reply, slug, MULTIPART_DETAILS[error.code] ?? error.message);
+    if (error.statusCode === 403 || error.statusCode === 404) {
+      // The static files of /docs refuse a path that climbs out of their folder (403): there is nothing there to name.
+      return send(reply, "not-found", `There is no ${request.method} ${request.url.split("?")[0]}. The endpoints are listed at /docs and /openapi.yaml.`);
+    }
     if (error.statusCode !== undefined && error.statusCode >= 400 && error.statusCode < 500) {
       request.log.info({ err: error }, "client error without a dedicated problem type");
       return send(reply, "invalid-request", error.message);
@@ -113,7 +119,8 @@ export const installProblemHandlers = (
   app.setNotFoundHandler((request, reply) => {
     const path = request.url.split("?")[0];
     const allowed = methodsOf(path);
-    if (allowed.length > 0) {
+    // A route that takes this method but found nothing (a missing file under /docs/static/*) is a 404, not a 405.
+    if (allowed.length > 0 && !allowed.includes(request.method)) {
       return send(reply, "method-not-allowed", `${path} does not take ${request.method}; it takes ${allowed.join(", ")}.`, undefined, {
         allow: allowed.join(", "),
       });

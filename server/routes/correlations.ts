@@ -4,7 +4,7 @@ import { z } from "zod";
 import { filterCorrelations, findCorrelation } from "../../core/index.js";
 import { CAUTION, correlationEntry } from "../derived-answer.js";
 import { ProblemError } from "../problems.js";
-import { correlationDescription, correlationFilter, correlationList } from "../schemas/correlations.js";
+import { correlationDescription, correlationFilter, correlationList, correlationQuery } from "../schemas/correlations.js";
 import { problemResponse, requestProblemResponses } from "../schemas/problem.js";
 
 /** The catalogue of published empirical correlations, with their citations and calibration ranges. */
@@ -17,7 +17,7 @@ export default async function correlationRoutes(instance: FastifyInstance): Prom
       schema: {
         tags: ["correlations"],
         summary: "The catalogue of empirical correlations (static Young's modulus, UCS, friction angle, Vs, density, brittleness).",
-        description: `Filter by kind and lithology. ${CAUTION}`,
+        description: `Filter by kind and lithology, in any case (kind=UCS reads as ucs). ${CAUTION}`,
         querystring: correlationFilter,
         response: { 200: correlationList, 400: problemResponse(400), ...requestProblemResponses },
       },
@@ -35,7 +35,8 @@ export default async function correlationRoutes(instance: FastifyInstance): Prom
         tags: ["correlations"],
         summary: "One correlation: formula, inputs and units, calibration ranges, citation and caveats.",
         params: z.object({ id: z.string().meta({ examples: ["static_e.lacy1997_sandstone"] }) }),
-        response: { 200: correlationDescription, 404: problemResponse(404), ...requestProblemResponses },
+        querystring: correlationQuery,
+        response: { 200: correlationDescription, 400: problemResponse(400), 404: problemResponse(404), ...requestProblemResponses },
       },
     },
     async (request) => {

@@ -37,10 +37,6 @@ const DESCRIPTION = [
   "These are dynamic (log-derived) values: estimates, to be calibrated against core tests before engineering use.",
 ].join(" ");
 
-/** A request that carries content (RFC 9112 §6.3: Transfer-Encoding, or a Content-Length above zero). */
-const hasBody = (headers: { "content-length"?: string; "transfer-encoding"?: string }): boolean =>
-  headers["transfer-encoding"] !== undefined || (headers["content-length"] !== undefined && headers["content-length"] !== "0");
-
 export default async function elasticRoutes(instance: FastifyInstance, options: ElasticRouteOptions): Promise<void> {
   const app = instance.withTypeProvider<ZodTypeProvider>();
   // Content-type parsers are encapsulated per plugin: here only JSON is accepted, anything else is a 415.
@@ -61,11 +57,6 @@ export default async function elasticRoutes(instance: FastifyInstance, options: 
     async (request) => {
       if (negotiateMediaType(request.headers.accept, [JSON_MEDIA_TYPE]) === undefined) {
         throw new ProblemError("not-acceptable", `Accept "${request.headers.accept}" names no format this endpoint writes: it answers ${JSON_MEDIA_TYPE}.`);
-      }
-      if (hasBody(request.headers)) {
-        throw new ProblemError("invalid-request", "GET /v1/elastic takes one sample in the query string and reads no body; send columns in a body with POST /v1/elastic.", [
-          { field: "body", message: "leave the body empty on GET, or use POST" },
-        ]);
       }
       const query = request.query;
       const core = pointRequest(query);

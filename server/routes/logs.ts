@@ -1,15 +1,16 @@
 import { Readable } from "node:stream";
 import multipart from "@fastify/multipart";
-import type { FastifyInstance, FastifyReply, FastifyRequest } from "fastify";
+import { errorCodes, type FastifyInstance, type FastifyReply, type FastifyRequest } from "fastify";
 import type { ZodTypeProvider } from "fastify-type-provider-zod";
 import { z } from "zod";
-import type { Zone } from "../../core/index.js";
+import { isInputIssues, type Zone } from "../../core/index.js";
 import { convertLogs, type ZoneWithList } from "../logs-task.js";
 import { sendAnswer } from "../answer-pool.js";
 import { convertWellStream } from "../well-stream.js";
 import { declaredEncoding } from "../well-upload.js";
 import { negotiateMediaType } from "../media-negotiation.js";
-import { PROBLEM_MEDIA_TYPE, ProblemError } from "../problems.js";
+import { fieldPath, invalidFields, isProblemError, PROBLEM_MEDIA_TYPE, ProblemError } from "../problems.js";
+import { parseJsonText } from "../json-text.js";
 import { logsJsonResponse, logsQuery, type LogsQuery } from "../schemas/logs.js";
 import { commonProblemResponses, problemSchema } from "../schemas/problem.js";
 import { parseZonesText, zoneList } from "../schemas/zones.js";
@@ -47,19 +48,39 @@ const zonesFromQuery = (text: string | undefined): Zone[] | undefined => {
   return parsed.zones;
 };
 
+/** What Windows editors put before a UTF-8 file's text; a JSON parser may ignore it (RFC 8259 §8.1). */
+const BYTE_ORDER_MARK = "\uFEFF";
+const ZONES_SHAPE = "expected a JSON array of {name, top, base}";
+
+/** A zones part, read as a JSON body is: a syntax error by line and column, a name given twice refused. */
 const zonesFromPart = (value: unknown): ZoneWithList[] => {
+  const sent = String(value);
+  const text = sent.startsWith(BYTE_ORDER_MARK) ? sent.slice(1) : sent;
+  if (text.trim() === "") {
+    throw new ProblemError("invalid-request", "The zones part is empty: send a JSON array of {name, top, base}, or leave the part out.", [
+      { field: "body.zones", message: `is empty; ${ZONES_SHAPE}` },
+    ]);
+  }
   let json: unknown;
   try {
-    json = JSON.parse(String(value));
-  } catch {
-    throw new ProblemError("invalid-request", "The zones part is not JSON.", [{ field: "body.zones", message: "expected a JSON array of {name, top, base}" }]);
+    json = parseJsonText(text);
+  } catch (error) {
+    if (isInputIssues(error)) {
+      // Paths of names given twice start at the part's own value (`[0].name`).
+      throw invalidFields(error.issues.map((issue) => ({ field: `body.zones${issue.field.startsWith("[") ? "" : "."}${issue.field}`, message: issue.message })));
+    }
+    if (!isProblemError(error)) throw error;
+    throw new ProblemError(error.slug, `In the zones part: ${error.detail}`, [{ field: "body.zones", message: ZONES_SHAPE }]);
   }
   const result = zoneList.safeParse(json);
   if (!result.success) {
     throw new ProblemError(
       "invalid-request",
       "The zones part is not a list of {name, top, base}.",
-      result.error.issues.map((issue) => ({ field: ["body", "zones", ...issue.path].join("."), message: issue.message })),
+      result.error.issues.map((issue) => ({
+        field: fieldPath(["body", "zones", ...issue.path.map((step) => (typeof step === "symbol" ? String(step) : step))]),
+        message: issue.message,
+      })),
     );
   }
   return result.data;
@@ -69,7 +90,10 @@ const zonesFromPart = (value: unknown): ZoneWithList[] => {
 const multipartProblem = (error: unknown): unknown => {
   const status = (error as { statusCode?: number }).statusCode;
   if (error instanceof ProblemError || (status !== undefined && status < 500)) return error;
-  return new ProblemError("malformed-body", `The multipart/form-data body could not be read: ${(error as Error).message}.`);
+  return new ProblemError(
+    "malformed-body",
+    `The multipart/form-data body could not be read (${(error as Error).message.replace(/\.$/, "")}): let the client write the body and its Content-Type with the boundary, as curl -F file=@well.las does, or send the file itself as the body.`,
+  );
 };
 
 /** What a multipart upload may hold, as said by both readers of it (with zones for JSON, as a stream otherwise). */
@@ -198,6 +222,12 @@ export default async function logsRoutes(instance: FastifyInstance, options: Log
   const app = instance.withTypeProvider<ZodTypeProvider>();
   app.removeAllContentTypeParsers();
   app.addContentTypeParser(RAW_FILE_TYPES, (_request, payload, done) => done(null, payload));
+  // A body sent without any Content-Type (a script posting a file's bytes as they are) is the file too;
+  // a Content-Type that names something else stays a 415.
+  app.addContentTypeParser("*", (request, payload, done) => {
+    if (request.headers["content-type"] === undefined) done(null, payload);
+    else done(new errorCodes.FST_ERR_CTP_INVALID_MEDIA_TYPE(), undefined);
+  });
   await app.register(multipart, {
     // Two files at most: the well, and the zones sent as a file (curl -F zones=@zones.json).
     limits: { fileSize: options.fileBodyLimitBytes, files: 2, fields: 4, parts: 6 },

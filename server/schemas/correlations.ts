@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { CORRELATION_KINDS, LITHOLOGIES } from "../../core/index.js";
+import { CORRELATION_KINDS, LITHOLOGIES, MIN_RELATIVE_SPAN } from "../../core/index.js";
 
 export const correlationKind = z.enum(CORRELATION_KINDS).meta({
   id: "CorrelationKind",
@@ -26,7 +26,19 @@ export const correlationDescription = z
         calibration_range: range.meta({ description: "Range of the source's data for this input, in `unit`; null where none is published." }),
       }),
     ),
-    options: z.array(z.object({ name: z.string(), unit: z.string(), default_value: z.number(), description: z.string() })),
+    options: z.array(
+      z.object({
+        name: z.string(),
+        unit: z.string(),
+        default_value: z.number(),
+        description: z.string(),
+        range: z
+          .object({ min: z.number().nullable(), min_included: z.boolean(), max: z.number().nullable(), max_included: z.boolean() })
+          .meta({ description: "Values a request may give, in `unit`; a null side is open (the value must still be finite). Anything else is a 400." }),
+        below: z.string().nullable().meta({ description: `For the lower bound of a pair: the option it must stay below once defaults fill what the request leaves out, by at least ${MIN_RELATIVE_SPAN * 100} % of the largest in size of the two bounds and their defaults.` }),
+        accepts: z.string().meta({ description: "The range and any pairing, in words." }),
+      }),
+    ),
     published_output_unit: z.string(),
     output_unit: z.string().meta({ description: "Unit of the values the service returns." }),
     output_range: range,
@@ -41,7 +53,13 @@ export const correlationList = z
   .object({ count: z.int(), correlations: z.array(correlationDescription), caution: z.string() })
   .meta({ id: "CorrelationCatalogue" });
 
-export const correlationFilter = z.strictObject({ kind: correlationKind.optional(), lithology: lithology.optional() });
+/** An enum query value in any case (`UCS`, `Shale`), read as the lower-case value the schema documents. */
+const anyCase = <T extends z.ZodType>(schema: T) => z.preprocess((value) => (typeof value === "string" ? value.toLowerCase() : value), schema);
+
+export const correlationFilter = z.strictObject({ kind: anyCase(correlationKind).optional(), lithology: anyCase(lithology).optional() });
+
+/** GET /v1/correlations/{id} takes no query parameters: any is refused as unknown, as the list refuses its own. */
+export const correlationQuery = z.strictObject({});
 
 /** The first id given twice, if any. */
 const repeatedId = (ids: readonly string[]): string | undefined => ids.find((id, i) => ids.indexOf(id) !== i);
@@ -59,7 +77,7 @@ export const correlationOptions = z
   .record(z.string(), z.record(z.string(), z.number()))
   .meta({
     description:
-      "Options per correlation id, e.g. {\"brittleness.rickman2008\": {\"e_min_mpsi\": 1, \"e_max_mpsi\": 8}}. Each id must be one the request applies (in correlations or a zone's correlations) and each option one that correlation has (GET /v1/correlations/{id} lists them); anything else is a 400.",
+      "Options per correlation id, e.g. {\"brittleness.rickman2008\": {\"e_min_mpsi\": 1, \"e_max_mpsi\": 8}}. Each id must be one the request applies (in correlations or a zone's correlations), each option one that correlation has, and each value within the option's range, with a lower bound below its upper bound (GET /v1/correlations/{id} lists the options and their ranges); anything else is a 400.",
   });
 
 export const fillMode = z

@@ -43,7 +43,7 @@ export const logsQuery = z.strictObject({
     .refine((text) => text.trim() !== "", "is empty: give zones as name:top:base separated by ;, or leave the parameter out")
     .optional()
     .meta({
-      description: "Zones to summarise, as name:top:base separated by ; in the depth unit of the file (e.g. Linnet_Sand:1522.4:1561.8;Sorrel_Shale:1561.8:1640.3). A multipart upload may instead send a `zones` part holding a JSON array of {name, top, base}.",
+      description: "Zones to summarise, as name:top:base separated by ; in the depth unit of the file (e.g. Linnet_Sand:1522.4:1561.8;Sorrel_Shale:1561.8:1640.3); top and base are decimal numbers, an empty entry is refused, one trailing ; is allowed. A multipart upload may instead send a `zones` part holding a JSON array of {name, top, base}.",
     }),
   correlations: correlationIdText()
     .optional()

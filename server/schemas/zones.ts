@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { queryNumber } from "./query-number.js";
 
 export const zoneSchema = z
   .strictObject({
@@ -11,7 +12,7 @@ export const zoneSchema = z
       .optional()
       .meta({ description: "Correlations applied to this zone's samples only (lithology changes by formation); a static_e listed here feeds this zone's UCS and brittleness." }),
   })
-  .meta({ id: "Zone", description: "A formation interval to summarise. A sample belongs to it when top <= depth < base (the deepest zone's base is inclusive when no other zone starts there)." });
+  .meta({ id: "Zone", description: "A formation interval to summarise. A sample belongs to it when top <= depth < base, and at depth = base too unless another zone of the request starts there (contiguous zones share no sample; a lone zone keeps its base sample)." });
 
 export const zoneList = z.array(zoneSchema).max(1000);
 
@@ -43,21 +44,33 @@ export const zoneSummarySchema = z
   })
   .meta({ id: "ZoneSummary" });
 
+const depthNumber = queryNumber();
+
+/** A zone's top or base as a decimal number (no hex, binary or octal, no blank), or why it is not one. */
+const readDepth = (text: string): { value: number } | { error: string } => {
+  if (text.trim() === "") return { error: "is empty" };
+  const parsed = depthNumber.safeParse(text);
+  return parsed.success ? { value: parsed.data } : { error: parsed.error.issues[0]?.message ?? "is not a decimal number" };
+};
+
 /**
  * Zones written compactly for a query string: `name:top:base` separated by `;`
- * (e.g. `Linnet_Sand:1522.4:1561.8;Sorrel_Shale:1561.8:1640.3`).
+ * (e.g. `Linnet_Sand:1522.4:1561.8;Sorrel_Shale:1561.8:1640.3`). Top and base are decimal numbers as any query
+ * number is. An empty entry (`a:1:2;;b:3:4`) is refused rather than skipped; one trailing `;` ends the list.
  */
 export const parseZonesText = (text: string): { zones: z.infer<typeof zoneList> } | { error: string } => {
   const zones: z.infer<typeof zoneList> = [];
-  for (const [i, entry] of text.split(";").entries()) {
-    if (entry.trim() === "") continue;
+  const entries = text.split(";");
+  if (entries.length > 1 && entries[entries.length - 1].trim() === "") entries.pop();
+  for (const [i, entry] of entries.entries()) {
+    if (entry.trim() === "") return { error: `zone ${i + 1} is empty: separate the zones by single ; (one ; at the end is allowed)` };
     const parts = entry.split(":");
-    const [top, base] = parts.slice(-2).map((part) => (part.trim() === "" ? NaN : Number(part)));
     const name = parts.slice(0, -2).join(":").trim();
-    if (parts.length < 3 || name === "" || !Number.isFinite(top) || !Number.isFinite(base)) {
-      return { error: `zone ${i + 1} ("${entry}") is not name:top:base with numeric top and base` };
-    }
-    zones.push({ name, top, base });
+    if (parts.length < 3 || name === "") return { error: `zone ${i + 1} ("${entry}") is not name:top:base` };
+    const [top, base] = parts.slice(-2).map(readDepth);
+    if ("error" in top) return { error: `zone ${i + 1} ("${entry}"): top ${top.error}` };
+    if ("error" in base) return { error: `zone ${i + 1} ("${entry}"): base ${base.error}` };
+    zones.push({ name, top: top.value, base: base.value });
   }
   return { zones };
 };

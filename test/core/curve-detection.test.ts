@@ -180,3 +180,32 @@ describe("optional roles", () => {
     expect(() => detectCurves(curves, {}, ["vs"])).toThrow(/rho_curve/);
   });
 });
+
+describe("one curve for one role: a curve named for two of Vp, Vs, density and depth is refused, naming both", () => {
+  it("refuses DTC as both Vp and Vs (Vs = Vp in every sample is no shear log)", () => {
+    const { issues } = issuesOf(() => detectCurves(curves("DEPT M", "DTC US/F", "DTS US/F", "RHOB G/C3"), { vp: "DTC", vs: "dtc" }));
+    expect(issues).toEqual([
+      {
+        field: "vs_curve",
+        message: "curve DTC is named for two roles, the compressional sonic (vp_curve) and the shear sonic (vs_curve); name a different curve for one of them",
+      },
+    ]);
+  });
+
+  it("refuses a curve without a unit named for density and depth", () => {
+    const { issues } = issuesOf(() => detectCurves(curves("DEPT M", "DTC US/F", "DTS US/F", "AUX"), { rho: "AUX", depth: "AUX" }));
+    expect(issues).toEqual([
+      {
+        field: "depth_curve",
+        message: "curve AUX is named for two roles, the bulk density (rho_curve) and the depth (depth_curve); name a different curve for one of them",
+      },
+    ]);
+  });
+
+  it("a curve named for one role is passed over when the others are detected", () => {
+    const mapping = detectCurves(curves("DEPT M", "DTC US/F", "DT US/F", "RHOB G/C3"), { vs: "DTC" });
+    expect(mapping.vs?.mnemonic).toBe("DTC");
+    expect(mapping.vp.mnemonic).toBe("DT");
+    expect(issuesOf(() => detectCurves(curves("DEPT M", "DTC US/F", "RHOB G/C3"), { vs: "DTC" })).issues.map((issue) => issue.field)).toEqual(["vp_curve"]);
+  });
+});

@@ -113,3 +113,73 @@ describe("correlation_options must name a correlation the request applies", () =
     expect(problem.errors).toContainEqual({ field: "query.correlation_options", message: expect.stringContaining("unknown field") });
   });
 });
+
+describe("correlation_options must lie in each option's declared range (Rickman et al. 2008, SPE 115258: bounds per play)", () => {
+  const LACY_SANDSTONE = "static_e.lacy1997_sandstone";
+  const withOptions = (options: Record<string, number>, extra: object = columns) =>
+    post({ ...extra, correlations: [LACY_SANDSTONE, RICKMAN], correlation_options: { [RICKMAN]: options } });
+
+  it.each([
+    [
+      "Young's modulus bounds of ±1.7e308, whose difference overflowed",
+      { e_min_mpsi: -1.7e308, e_max_mpsi: 1.7e308 },
+      [{ field: `body.correlation_options.${RICKMAN}.e_min_mpsi`, message: "must be a finite number above 0 Mpsi; got -1.7e+308" }],
+    ],
+    [
+      "Poisson's ratio bounds outside (−1, 0.5], what isotropic elasticity allows (Landau & Lifshitz §5, from memory)",
+      { nu_min: -5, nu_max: 7 },
+      [
+        { field: `body.correlation_options.${RICKMAN}.nu_min`, message: "must be a number above -1 and at most 0.5; got -5" },
+        { field: `body.correlation_options.${RICKMAN}.nu_max`, message: "must be a number above -1 and at most 0.5; got 7" },
+      ],
+    ],
+    [
+      "e_max_mpsi one ulp above the default e_min_mpsi of 1, which gave BI ≈ −9e15 %",
+      { e_max_mpsi: 1.0000000000000002 },
+      [{ field: `body.correlation_options.${RICKMAN}.e_max_mpsi`, message: expect.stringContaining("must exceed e_min_mpsi (1, its default) by at least 0.008 Mpsi") }],
+    ],
+  ])("%s is a 400 naming the option's path and the accepted range", async (_name, options, errors) => {
+    const { response, body } = await withOptions(options);
+    const problem = expectInvalid(response, body);
+    expect(problem.type).toBe("/problems/invalid-request");
+    expect(problem.errors).toEqual(errors);
+    expect(problem.detail).toContain(`correlation_options.${RICKMAN}.`);
+  });
+
+  it("the same 400 for a correlation applied only in a zone, and for a body prepared on the worker threads (over 64 KiB)", async () => {
+    const depth = [1000, 1001, 1002];
+    const zoned = await post({
+      depth,
+      ...{ dtc: [80, 82, 84], dts: [140, 143, 150], rho: [2.5, 2.52, 2.48] },
+      correlation_options: { [RICKMAN]: { nu_max: 0.6 } },
+      zones: [{ name: "Kestrel_Shale", top: 1001, base: 1003, correlations: [LACY_SANDSTONE, RICKMAN] }],
+    });
+    expect(expectInvalid(zoned.response, zoned.body).errors).toEqual([
+      { field: `body.correlation_options.${RICKMAN}.nu_max`, message: "must be a number above -1 and at most 0.5; got 0.6" },
+    ]);
+    const samples = 6000;
+    const big = { dtc: Array(samples).fill(80.123456), dts: Array(samples).fill(140.123456), rho: Array(samples).fill(2.512345) };
+    const large = await withOptions({ e_min_mpsi: 0 }, big);
+    expect(expectInvalid(large.response, large.body).errors?.[0].field).toBe(`body.correlation_options.${RICKMAN}.e_min_mpsi`);
+  });
+
+  it("bounds inside their ranges still work: ν_max = 0.5 (G = 0) with a wide E span gives the published formula's value", async () => {
+    const { response, body } = await withOptions({ e_min_mpsi: 0.5, e_max_mpsi: 12, nu_min: 0, nu_max: 0.5 });
+    expect(response.statusCode).toBe(200);
+    const es = body.derived[LACY_SANDSTONE].values[0] / 6.894757293168; // GPa → Mpsi (NIST SP 811: 1 psi = 6894.757293168 Pa)
+    const nu = body.nu[0];
+    // Rickman et al. (2008): BI = 50·((E − Emin)/(Emax − Emin) + (νmax − ν)/(νmax − νmin))
+    expect(body.derived[RICKMAN].values[0]).toBeCloseTo(50 * ((es - 0.5) / 11.5 + (0.5 - nu) / 0.5), 9);
+  });
+
+  it("GET /v1/correlations/{id} lists each option's range and pairing, as the refusals word them", async () => {
+    const app = await build();
+    const response = await app.inject({ url: `/v1/correlations/${RICKMAN}` });
+    expect(response.statusCode).toBe(200);
+    const options = response.json().options;
+    expect(options.map((option: { name: string }) => option.name)).toEqual(["e_min_mpsi", "e_max_mpsi", "nu_min", "nu_max"]);
+    expect(options[0]).toMatchObject({ range: { min: 0, min_included: false, max: null, max_included: false }, below: "e_max_mpsi" });
+    expect(options[0].accepts).toContain("a finite number above 0 Mpsi, below e_max_mpsi");
+    expect(options[3]).toMatchObject({ range: { min: -1, min_included: false, max: 0.5, max_included: true }, below: null });
+  });
+});

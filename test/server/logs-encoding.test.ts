@@ -44,4 +44,21 @@ describe("the text encoding of a well file (RFC 9110 §8.3.2 charset; WHATWG Enc
     expect(response.statusCode).toBe(415);
     expect(response.json().detail).toContain("UTF-8");
   });
+
+  it.each([
+    ["text/csv; charset=utf-8; charset=latin1", "2 times"],
+    ['text/csv; charset="utf-8', "does not close"],
+    ["text/csv; charset=", "empty"],
+  ])("%s is a 415 problem, not a guess", async (contentType, words) => {
+    const response = await convert(Buffer.from(TEXT, "utf8"), contentType);
+    expect(response.statusCode).toBe(415);
+    expect(response.json().detail).toContain(words);
+  });
+
+  it('a quoted charset (RFC 9110 §5.6.6), charset="ISO-8859-1", is read', async () => {
+    const response = await convert(LATIN1, 'text/csv; charset="ISO-8859-1"');
+    expect(response.statusCode).toBe(200);
+    expect(JSON.stringify(response.json().warnings)).not.toContain("Windows-1252");
+  });
 });
+

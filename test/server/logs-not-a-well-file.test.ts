@@ -45,3 +45,30 @@ describe("bodies that are not a LAS or CSV text get a 422 that says what they ar
     expect(response.json().count).toBe(2);
   });
 });
+
+describe("a well file sent without a Content-Type", () => {
+  it("is read as the file (a script posting the file's bytes as they are sends none), while a foreign Content-Type stays a 415", async () => {
+    const app = await build();
+    const bare = await app.inject({ method: "POST", url: "/v1/logs", payload: Buffer.from(CSV) });
+    expect(bare.headers["content-type"]).toMatch(/^application\/json/);
+    expect(bare.statusCode).toBe(200);
+    expect(bare.json().count).toBe(2);
+    const foreign = await app.inject({ method: "POST", url: "/v1/logs", payload: CSV, headers: { "content-type": "image/png" } });
+    expect(foreign.statusCode).toBe(415);
+    expect(foreign.json().detail).toContain("image/png");
+  });
+});
+
+describe("a multipart body the upload reader cannot split", () => {
+  it("(no boundary in the body) is a 400 that says how to send an upload, not the reader library's words alone", async () => {
+    const app = await build();
+    const response = await app.inject({
+      method: "POST",
+      url: "/v1/logs",
+      payload: CSV,
+      headers: { "content-type": "multipart/form-data; boundary=marram-bank-7" },
+    });
+    expect(response.statusCode).toBe(400);
+    expect(response.json().detail).toContain("curl -F file=@well.las");
+  });
+});

@@ -26,6 +26,13 @@ describe("problem details (RFC 9457)", () => {
     expect(response.body).not.toMatch(/at .*\.(ts|js):\d+/);
   });
 
+  it("NaN or Infinity in a JSON body (as Python's json.dumps writes them) is a 400 that gives their place and says to write null (RFC 8259 §6)", async () => {
+    const response = await raw("POST", "/v1/elastic", '{"dtc": [95, 96],\n "dts": [170, NaN], "rho": [2.4, 2.4]}', "application/json");
+    expect(response.statusCode).toBe(400);
+    expect(response.json().detail).toContain("line 2, column 15");
+    expect(response.json().detail).toContain("NaN is not a JSON number (RFC 8259 §6): write null");
+  });
+
   it("the JSON syntax error names the line and column", async () => {
     const response = await raw("POST", "/v1/elastic", '{"vp": [1],\n "vs": [1 "rho": [2]}', "application/json");
     expect(response.json().detail).toContain("line 2, column");
@@ -86,5 +93,30 @@ describe("errors met while routing (Fastify's frameworkErrors)", () => {
     expect(response.statusCode).toBe(404);
     expect(response.headers["content-type"]).toMatch(/^application\/problem\+json/);
     expect(problemSchema.parse(response.json())).toMatchObject({ type: "/problems/not-found" });
+  });
+});
+
+describe("the static files of /docs", () => {
+  it("a file that does not exist under /docs/static/ is a 404 problem, not a 405 (the route takes GET)", async () => {
+    const response = await raw("GET", "/docs/static/no-such-sheet.css");
+    expect(response.statusCode).toBe(404);
+    expect(problemSchema.parse(response.json())).toMatchObject({ type: "/problems/not-found" });
+  });
+
+  it("a path that climbs out of the folder (RFC 3986 §5.2.4 dot segments, sent as they are) is a 404 problem, with no library wording", async () => {
+    const response = await raw("GET", "/docs/static/..%2F..%2Fopenapi.yaml");
+    expect(response.statusCode).toBe(404);
+    expect(response.json().detail).not.toBe("Forbidden");
+  });
+});
+
+describe("field paths in errors are written as a request author writes them", () => {
+  it("array positions in brackets, names joined by dots (as the checks of correlation options write them)", async () => {
+    const app = await build();
+    const post = (payload: object) => app.inject({ method: "POST", url: "/v1/elastic", payload });
+    const zones = await post({ depth: [1, 2], dtc: [95, 96], dts: [170, 171], rho: [2.4, 2.4], zones: [{ name: 5, top: 1, base: 2 }] });
+    expect(zones.json().errors.map((e: { field: string }) => e.field)).toContain("body.zones[0].name");
+    const options = await post({ dtc: [95], dts: [170], rho: [2.4], correlation_options: { "brittleness.rickman2008": { e_min_mpsi: "one" } } });
+    expect(options.json().errors.map((e: { field: string }) => e.field)).toContain("body.correlation_options.brittleness.rickman2008.e_min_mpsi");
   });
 });

@@ -68,8 +68,9 @@ describe("brittleness.rickman2008", () => {
       }
       return [];
     };
-    expect(issuesOf({ e_min_mpsi: 8 })).toEqual(["e_max_mpsi"]);
-    expect(issuesOf({ nu_min: 0.5 })).toEqual(["nu_max"]);
+    expect(issuesOf({ e_min_mpsi: 8 })).toEqual(["e_min_mpsi"]);
+    expect(issuesOf({ nu_min: 0.5 })).toEqual(["nu_min"]);
+    expect(issuesOf({ e_min_mpsi: 3, e_max_mpsi: 3 })).toEqual(["e_max_mpsi"]);
     expect(issuesOf({ nu_minimum: 0.1 })).toEqual(["nu_minimum"]);
     expect(issuesOf({ e_max_mpsi: Number.POSITIVE_INFINITY })).toEqual(["e_max_mpsi"]);
   });
