@@ -1,3 +1,5 @@
+import { ProblemError } from "./problems.js";
+
 interface MediaRange {
   type: string;
   subtype: string;
@@ -45,4 +47,11 @@ export const negotiateMediaType = <T extends string>(header: string | undefined,
     if (match !== undefined && match.q > 0 && (best === undefined || match.q > best.q)) best = { type: mediaType, q: match.q };
   }
   return best?.type;
+};
+
+/** For endpoints that answer JSON only: a 406 problem when Accept names nothing JSON can satisfy (RFC 9110 §12.5.1). */
+export const requireJsonAnswer = (accept: string | undefined): void => {
+  if (negotiateMediaType(accept, ["application/json"]) === undefined) {
+    throw new ProblemError("not-acceptable", `Accept "${accept}" names no format this endpoint writes: it answers application/json.`);
+  }
 };

@@ -3,6 +3,7 @@ import type { ZodTypeProvider } from "fastify-type-provider-zod";
 import { z } from "zod";
 import { filterCorrelations, findCorrelation } from "../../core/index.js";
 import { CAUTION, correlationEntry } from "../derived-answer.js";
+import { requireJsonAnswer } from "../media-negotiation.js";
 import { ProblemError } from "../problems.js";
 import { correlationDescription, correlationFilter, correlationList, correlationQuery } from "../schemas/correlations.js";
 import { problemResponse, requestProblemResponses } from "../schemas/problem.js";
@@ -19,10 +20,11 @@ export default async function correlationRoutes(instance: FastifyInstance): Prom
         summary: "The catalogue of empirical correlations (static Young's modulus, UCS, friction angle, Vs, density, brittleness).",
         description: `Filter by kind and lithology, in any case (kind=UCS reads as ucs). ${CAUTION}`,
         querystring: correlationFilter,
-        response: { 200: correlationList, 400: problemResponse(400), ...requestProblemResponses },
+        response: { 200: correlationList, 400: problemResponse(400), 406: problemResponse(406), ...requestProblemResponses },
       },
     },
     async (request) => {
+      requireJsonAnswer(request.headers.accept);
       const correlations = filterCorrelations(request.query).map(correlationEntry);
       return { count: correlations.length, correlations, caution: CAUTION };
     },
@@ -36,10 +38,11 @@ export default async function correlationRoutes(instance: FastifyInstance): Prom
         summary: "One correlation: formula, inputs and units, calibration ranges, citation and caveats.",
         params: z.object({ id: z.string().meta({ examples: ["static_e.lacy1997_sandstone"] }) }),
         querystring: correlationQuery,
-        response: { 200: correlationDescription, 400: problemResponse(400), 404: problemResponse(404), ...requestProblemResponses },
+        response: { 200: correlationDescription, 400: problemResponse(400), 404: problemResponse(404), 406: problemResponse(406), ...requestProblemResponses },
       },
     },
     async (request) => {
+      requireJsonAnswer(request.headers.accept);
       const correlation = findCorrelation(request.params.id);
       if (correlation === undefined) {
         throw new ProblemError("not-found", `There is no correlation "${request.params.id}"; GET /v1/correlations lists the catalogue.`);

@@ -11,7 +11,7 @@ import { installRawBodyParser } from "../plugins/json-body.js";
 import { sendAnswer, socketSized } from "../answer-pool.js";
 import { ARROW_STREAM_MEDIA_TYPE } from "../arrow-codec.js";
 import { prepareColumnsAnswer, type ColumnsBody } from "../elastic-columns.js";
-import { negotiateMediaType } from "../media-negotiation.js";
+import { negotiateMediaType, requireJsonAnswer } from "../media-negotiation.js";
 import { ProblemError } from "../problems.js";
 import {
   elasticArrowQuery,
@@ -55,9 +55,7 @@ export default async function elasticRoutes(instance: FastifyInstance, options: 
       },
     },
     async (request) => {
-      if (negotiateMediaType(request.headers.accept, [JSON_MEDIA_TYPE]) === undefined) {
-        throw new ProblemError("not-acceptable", `Accept "${request.headers.accept}" names no format this endpoint writes: it answers ${JSON_MEDIA_TYPE}.`);
-      }
+      requireJsonAnswer(request.headers.accept);
       const query = request.query;
       const core = pointRequest(query);
       const log = computeElasticLog(core);

@@ -20,6 +20,15 @@ const post = async (payload: object) => {
 };
 
 describe("GET /v1/correlations", () => {
+  it.each([["/v1/correlations"], ["/v1/correlations/ucs.mcnally1987"]])("%s answers 406 (RFC 9110 §12.5.1) to an Accept that names no JSON, and JSON to */*", async (url) => {
+    const app = await build();
+    const refused = await app.inject({ url, headers: { accept: "image/png" } });
+    expect(refused.statusCode).toBe(406);
+    expect(refused.headers["content-type"]).toMatch(/^application\/problem\+json/);
+    const answered = await app.inject({ url, headers: { accept: "*/*" } });
+    expect(answered.statusCode).toBe(200);
+  });
+
   it("lists every catalogue entry with citation, formula, units, empirical: true and the caution", async () => {
     const { response, body } = await get("/v1/correlations");
     expect(response.statusCode).toBe(200);
