@@ -72,7 +72,7 @@ export const fileCases = async (base: string, well: SyntheticWell, folder: strin
   return (["csv", "las"] as const).map((format) => {
     const service = median(times[format]);
     return {
-      case: `${format.toUpperCase()} in and out, POST /v1/logs?format=${format}, ${samples} samples (${(sizes[format] / 1e6).toFixed(0)} MB file; input curves, 13 properties and QC out, computed values to ${DIGITS} significant digits; median of ${runs})`,
+      case: `${format.toUpperCase()} in and out, POST /v1/logs?format=${format}, ${samples} samples (${(sizes[format] / 1e6).toFixed(0)} MB file; input curves, 14 properties and QC out, computed values to ${DIGITS} significant digits; median of ${runs})`,
       measured: milliseconds(service),
       floor: numpy === undefined ? `numpy script not run: ${missing}` : `${milliseconds(numpy)} (python3 bench/reference_numpy.py on the CSV: depth and 7 moduli out, to ${DIGITS} significant digits; wall time)`,
       ratio: numpy === undefined ? "—" : `${(service / numpy).toFixed(2)}×`,

@@ -63,6 +63,8 @@ export interface ElasticLog {
   /** Vp and Vs as used (measured or filled), in the velocity unit (NaN where absent or unusable). */
   vp: Float64Array;
   vs: Float64Array;
+  /** Bulk density as used (measured or filled), in g/cm3 whatever the input's unit (NaN where absent or unusable). */
+  rho: Float64Array;
   /** One bit mask per sample (see qc-flags). */
   flags: Uint32Array;
   /** Bits that made a sample invalid under this request's options. */
@@ -161,6 +163,7 @@ export const computeElasticLog = (request: ElasticLogRequest): ElasticLog => {
     muRho: columns.muRho,
     vp: divided(vp, velocity),
     vs: divided(vs, velocity),
+    rho: divided(rho, DENSITY_UNITS["g/cm3"]),
     flags,
     invalidMask,
     filled,

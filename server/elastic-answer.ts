@@ -82,6 +82,7 @@ export const pointAnswer = (log: ElasticLog, request: ElasticLogRequest, units: 
     mu_rho: nullable(log.muRho[0]),
     vp: nullable(log.vp[0]),
     vs: nullable(log.vs[0]),
+    rho: nullable(log.rho[0]),
     valid: (mask & log.invalidMask) === 0,
     flags: flagCodesOf(mask).map((code) => ({
       code,

@@ -35,6 +35,7 @@ export const OUTPUT_PROPERTIES = [
   { key: "mu_rho", curve: "EL_MURHO", description: "MU*RHO", unit: modulusDensity, column: (log) => log.muRho },
   { key: "vp", curve: "EL_VP", description: "COMPRESSIONAL VELOCITY USED", unit: (u) => u.velocity, column: (log) => log.vp },
   { key: "vs", curve: "EL_VS", description: "SHEAR VELOCITY USED", unit: (u) => u.velocity, column: (log) => log.vs },
+  { key: "rho", curve: "EL_RHO", description: "BULK DENSITY USED", unit: () => "g/cm3", column: (log) => log.rho },
 ] as const satisfies readonly OutputProperty[];
 
 export type PropertyKey = (typeof OUTPUT_PROPERTIES)[number]["key"];

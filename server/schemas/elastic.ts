@@ -91,6 +91,7 @@ export const elasticPointResponse = z
     mu_rho: propertyValue("mu*rho = G*rho, in the modulus unit times g/cm3."),
     vp: propertyValue("Compressional velocity used (from vp or dtc), in the velocity unit; null when unusable."),
     vs: propertyValue("Shear velocity used (from vs or dts), in the velocity unit; null when unusable."),
+    rho: propertyValue("Bulk density used (measured, or predicted by rho_from), in g/cm3 whatever the density unit of the input (as impedances and lambda*rho use); null when unusable."),
     valid: z.boolean().meta({ description: "False when an invalid flag made the moduli null." }),
     flags: z.array(pointFlag),
     derived: derivedPoint.optional(),
@@ -198,6 +199,7 @@ export const elasticColumnsResponse = z
     mu_rho: resultColumn("mu*rho."),
     vp: resultColumn("Compressional velocity used, in the velocity unit (null where unusable)."),
     vs: resultColumn("Shear velocity used, in the velocity unit (null where unusable)."),
+    rho: resultColumn("Bulk density used (measured, or predicted by rho_from), in g/cm3 whatever the density unit of the input (null where unusable)."),
     flags: z.array(sampleFlag).meta({ description: "Every flag raised, in row order." }),
     flag_legend: z
       .record(z.string(), z.object({ severity, meaning: z.string() }))

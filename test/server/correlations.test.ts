@@ -192,6 +192,8 @@ describe("gap filling (vs_from, rho_from)", () => {
     const rhoGardner = 0.31 * 3048 ** 0.25;
     expect(body.G[0]).toBeCloseTo((rhoGardner * 1000 * (304800 / 180) ** 2) / 1e9, 9);
     expect(body.flags).toContainEqual({ index: 0, code: "estimated_rho", severity: "suspect" });
+    // The predicted density is returned as the density used, in g/cm3, so the estimate can be seen and checked.
+    expect(body.rho[0]).toBeCloseTo(rhoGardner, 12);
   });
 });
 

@@ -134,5 +134,13 @@ describe("GET /v1/elastic", () => {
     expect(response.statusCode).toBe(400);
     expect(body.errors).toContainEqual({ field, message: words.includes("(") ? words : expect.stringContaining(words) });
   });
+
+  it("returns the bulk density used in g/cm3 whatever the input's unit (2450 kg/m3 is 2.45 g/cm3), as impedances and lambda*rho use it", async () => {
+    const { body } = await get("dtc=95&dts=170&rho=2450&density_unit=kg/m3");
+    expect(body.rho).toBeCloseTo(2.45, 14);
+    const same = await get("dtc=95&dts=170&rho=2.45");
+    expect(same.body.rho).toBe(2.45);
+    expect(body.E).toBeCloseTo(same.body.E, 12);
+  });
 });
 

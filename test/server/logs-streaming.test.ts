@@ -95,14 +95,14 @@ describe("streamed answers of a file longer than one batch", () => {
     const answer = json.json();
     const lines = ndjson.body.trimEnd().split("\n").map((line) => JSON.parse(line));
     expect(lines.map((line) => line.index)).toEqual(Array.from({ length: ROWS }, (_, i) => i));
-    for (const key of ["depth", "E", "nu", "G", "K", "lambda", "M", "vp_vs", "p_impedance", "s_impedance", "lambda_rho", "mu_rho", "vp", "vs"]) {
+    for (const key of ["depth", "E", "nu", "G", "K", "lambda", "M", "vp_vs", "p_impedance", "s_impedance", "lambda_rho", "mu_rho", "vp", "vs", "rho"]) {
       expect(lines.map((line) => line[key]), key).toEqual(answer[key]);
     }
     expect(lines.map((line) => line["static_e.eissa1988"])).toEqual(answer.derived["static_e.eissa1988"].values);
     const flagsByRow = lines.map(() => [] as string[]);
     for (const flag of answer.flags as { index: number; code: string }[]) flagsByRow[flag.index].push(flag.code);
     expect(lines.map((line) => line.flags)).toEqual(flagsByRow);
-    expect(Object.keys(lines[0])).toEqual(["index", "depth", "E", "nu", "G", "K", "lambda", "M", "vp_vs", "p_impedance", "s_impedance", "lambda_rho", "mu_rho", "vp", "vs", "static_e.eissa1988", "flags"]);
+    expect(Object.keys(lines[0])).toEqual(["index", "depth", "E", "nu", "G", "K", "lambda", "M", "vp_vs", "p_impedance", "s_impedance", "lambda_rho", "mu_rho", "vp", "vs", "rho", "static_e.eissa1988", "flags"]);
   });
 
   it("the CSV, LAS and NDJSON answers of the file fed in chunks of 997 bytes (splitting numbers, lines and batches) equal those of the whole file", async () => {
