@@ -51,7 +51,7 @@ const bodyFromArrow = (bytes: Uint8Array, query: ElasticArrowQuery): unknown => 
 /** Zod's issues in the request's own field names, worded as the app's error handler words them. */
 const fieldErrors = (error: z.ZodError): ProblemFieldError[] =>
   error.issues.flatMap((issue) => {
-    const path = ["body", ...issue.path.map((segment) => (typeof segment === "number" ? segment : String(segment)))];
+    const path = ["body", ...issue.path];
     return issue.code === "unrecognized_keys"
       ? issue.keys.map((key) => ({ field: fieldPath([...path, key]), message: UNKNOWN_FIELD_MESSAGE }))
       : [{ field: fieldPath(path), message: issue.message }];

@@ -4,6 +4,7 @@ import { optionsFromQuery } from "./elastic-request.js";
 import { splitAtColumns, type AnswerParts } from "./elastic-columns.js";
 import { logsAnswer } from "./logs-answer.js";
 import { ProblemError, unreadableFile, unusableData } from "./problems.js";
+import { correlationIdsOf } from "./schemas/correlations.js";
 import type { LogsQuery } from "./schemas/logs.js";
 import { convertWell, type ConversionOptions } from "./well-conversion.js";
 import { readWellFile, type FileEncoding } from "./well-upload.js";
@@ -30,9 +31,8 @@ export const conversionOptions = (query: LogsQuery): ConversionOptions => ({
   ...optionsFromQuery(query),
 });
 
-/** The correlation ids of `correlations=`, blanks dropped. */
-export const correlationIds = (query: LogsQuery): string[] | undefined =>
-  query.correlations?.split(",").map((id) => id.trim()).filter((id) => id !== "");
+/** The correlation ids of `correlations=` (validated by its schema: no empty or repeated entry). */
+export const correlationIds = (query: LogsQuery): string[] | undefined => (query.correlations === undefined ? undefined : correlationIdsOf(query.correlations));
 
 /**
  * `POST /v1/logs` with a JSON answer, from the file's bytes: read, detect curves, compute, derive, summarise zones.

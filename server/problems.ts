@@ -123,8 +123,10 @@ export const problemDocument = (
  * A field's path as a request author writes it, the same wherever it was checked: names joined by dots, array
  * positions in brackets (`body.zones[0].name`, `body.correlation_options.brittleness.rickman2008.e_min_mpsi`).
  */
-export const fieldPath = (segments: readonly (string | number)[]): string =>
-  segments.map((segment, i) => (typeof segment === "number" || /^\d+$/.test(segment) ? `[${segment}]` : `${i === 0 ? "" : "."}${segment}`)).join("");
+export const fieldPath = (segments: readonly PropertyKey[]): string =>
+  segments
+    .map((segment, i) => (typeof segment === "number" || /^\d+$/.test(String(segment)) ? `[${String(segment)}]` : `${i === 0 ? "" : "."}${String(segment)}`))
+    .join("");
 
 /** The 400 problem for a list of bad fields, worded the same wherever the fields were checked. */
 export const invalidFields = (errors: ProblemFieldError[]): ProblemError =>

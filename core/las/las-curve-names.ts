@@ -23,9 +23,12 @@ export const lasUnit = (unit: string): string => unit.replace(/\s/gu, "_");
 /** Text as a JSON string with its colons escaped, which a description can carry whole (a colon would end the value field). */
 const quoted = (text: string): string => JSON.stringify(text).replaceAll(":", "\\u003a");
 
+/** A description with a note of what the input had appended (`BIT SIZE; INPUT NAME "BS"`); unchanged without one. */
+const withNote = (description: string, note: string | undefined): string =>
+  note === undefined ? description : [description, note].filter((part) => part !== "").join("; ");
+
 /** A description with the name an item had in the input noted after it: `BIT SIZE; INPUT NAME "BS"`. */
-export const withInputName = (description: string, name: string): string =>
-  [description, `INPUT NAME ${quoted(name)}`].filter((note) => note !== "").join("; ");
+export const withInputName = (description: string, name: string): string => withNote(description, `INPUT NAME ${quoted(name)}`);
 
 /**
  * `~Curve` names for curves named anyhow: mnemonics made valid (`lasMnemonic`) and unique without regard to case
@@ -45,11 +48,7 @@ export const lasCurveNames = <T extends LasCurveName>(curves: readonly T[], rese
   order.forEach((c, i) => (mnemonics[c] = unique[i]));
   return curves.map((curve, c) => {
     const unit = lasUnit(curve.unit);
-    const notes = [
-      curve.description,
-      mnemonics[c] === curve.mnemonic ? "" : `INPUT NAME ${quoted(curve.mnemonic)}`,
-      unit === curve.unit ? "" : `INPUT UNIT ${quoted(curve.unit)}`,
-    ];
-    return { ...curve, mnemonic: mnemonics[c], unit, description: notes.filter((note) => note !== "").join("; ") };
+    const named = mnemonics[c] === curve.mnemonic ? curve.description : withInputName(curve.description, curve.mnemonic);
+    return { ...curve, mnemonic: mnemonics[c], unit, description: withNote(named, unit === curve.unit ? undefined : `INPUT UNIT ${quoted(curve.unit)}`) };
   });
 };

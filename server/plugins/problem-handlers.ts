@@ -24,6 +24,9 @@ const send = (
   return reply.code(body.status).headers(headers).type(PROBLEM_MEDIA_TYPE).send(body);
 };
 
+/** The detail of every 404 this app writes itself: what was asked for, and where the endpoints are listed. */
+const notFoundDetail = (method: string, path: string, why = ""): string => `There is no ${method} ${path}${why}. The endpoints are listed at /docs and /openapi.yaml.`;
+
 const CONTEXT_NAMES: Record<string, string> = { querystring: "query", body: "body", params: "path", headers: "header" };
 
 /** A query parameter sent more than once arrives as an array; whatever its schema says, that is what to fix. */
@@ -106,7 +109,7 @@ export const installProblemHandlers = (
     if (slug !== undefined) return send(reply, slug, MULTIPART_DETAILS[error.code] ?? error.message);
     if (error.statusCode === 403 || error.statusCode === 404) {
       // The static files of /docs refuse a path that climbs out of their folder (403): there is nothing there to name.
-      return send(reply, "not-found", `There is no ${request.method} ${request.url.split("?")[0]}. The endpoints are listed at /docs and /openapi.yaml.`);
+      return send(reply, "not-found", notFoundDetail(request.method, request.url.split("?")[0]));
     }
     if (error.statusCode !== undefined && error.statusCode >= 400 && error.statusCode < 500) {
       request.log.info({ err: error }, "client error without a dedicated problem type");
@@ -125,7 +128,7 @@ export const installProblemHandlers = (
         allow: allowed.join(", "),
       });
     }
-    return send(reply, "not-found", `There is no ${request.method} ${path}. The endpoints are listed at /docs and /openapi.yaml.`);
+    return send(reply, "not-found", notFoundDetail(request.method, path));
   });
 };
 
@@ -137,7 +140,7 @@ export const installProblemHandlers = (
 export const answerFrameworkError = (error: FastifyError, request: FastifyRequest, reply: FastifyReply) => {
   const path = request.url.split("?")[0];
   if (error.code === "FST_ERR_MAX_PARAM_LENGTH") {
-    return send(reply, "not-found", `There is no ${request.method} ${path}: a path segment is longer than any name here. The endpoints are listed at /docs and /openapi.yaml.`);
+    return send(reply, "not-found", notFoundDetail(request.method, path, ": a path segment is longer than any name here"));
   }
   return send(
     reply,

@@ -20,6 +20,7 @@ import {
   elasticPointQuery,
   elasticPointResponse,
 } from "../schemas/elastic.js";
+import { correlationIdsOf } from "../schemas/correlations.js";
 import { commonProblemResponses } from "../schemas/problem.js";
 
 export interface ElasticRouteOptions {
@@ -60,7 +61,7 @@ export default async function elasticRoutes(instance: FastifyInstance, options: 
       const core = pointRequest(query);
       const log = computeElasticLog(core);
       app.elasticMetrics.recordConversion(log.length, summariseFlags(log.flags, log.invalidMask).flags);
-      const ids = query.correlations?.split(",").map((id) => id.trim()).filter((id) => id !== "");
+      const ids = query.correlations === undefined ? undefined : correlationIdsOf(query.correlations);
       const derived = deriveProperties(log, { correlations: ids }, "query");
       const answer = pointAnswer(log, core, {
         velocity: query.velocity_unit,

@@ -78,7 +78,7 @@ const zonesFromPart = (value: unknown): ZoneWithList[] => {
       "invalid-request",
       "The zones part is not a list of {name, top, base}.",
       result.error.issues.map((issue) => ({
-        field: fieldPath(["body", "zones", ...issue.path.map((step) => (typeof step === "symbol" ? String(step) : step))]),
+        field: fieldPath(["body", "zones", ...issue.path]),
         message: issue.message,
       })),
     );

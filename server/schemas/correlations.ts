@@ -108,6 +108,9 @@ export const derivedColumns = z
   )
   .meta({ id: "DerivedColumns", description: "Empirical estimates keyed by correlation id, row-aligned with the input." });
 
+/** The ids of a comma-separated list as written (`correlations=a, b`), each trimmed; the schema below refuses empty ones. */
+export const correlationIdsOf = (text: string): string[] => text.split(",").map((id) => id.trim());
+
 /**
  * A comma-separated list of correlation ids in a query string. An empty value, an empty entry (`a,,b`) or an id
  * given twice is refused rather than read as fewer ids, so that what was asked is what is answered.
@@ -117,7 +120,7 @@ export const correlationIdText = () =>
     .string()
     .max(2000)
     .superRefine((text, context) => {
-      const ids = text.split(",").map((id) => id.trim());
+      const ids = correlationIdsOf(text);
       const twice = repeatedId(ids);
       if (text.trim() === "") context.addIssue({ code: "custom", message: "is empty: give correlation ids separated by commas (GET /v1/correlations lists them), or leave the parameter out" });
       else if (ids.includes("")) context.addIssue({ code: "custom", message: `has an empty entry in ${JSON.stringify(text)}: separate the ids by single commas` });

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { USUAL_NULL_VALUE } from "../../core/index.js";
 import { decimalNumber, queryNumber } from "./query-number.js";
 import { flagSummary, pointFlag, sampleFlag, severity } from "./flags.js";
 import { bodyLimitFields, limitFields, limitsUsed } from "./limits.js";
@@ -6,7 +7,7 @@ import { correlationIds, correlationIdText, correlationOptions, derivedColumns, 
 import { zoneList, zoneSummarySchema } from "./zones.js";
 import { densityUnit, depthUnit, impedanceUnit, modulusUnit, slownessUnit, unitsUsed, velocityUnit, DEFAULT_UNITS } from "./units.js";
 
-const DEFAULT_NULL_VALUE = -999.25;
+const DEFAULT_NULL_VALUE = USUAL_NULL_VALUE;
 
 const pointValue = (description: string, example: number) =>
   // Examples sit on the inner number: the JSON Schema of a preprocessed value is its inner schema's.

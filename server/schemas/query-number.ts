@@ -3,11 +3,13 @@ import { z } from "zod";
 /** A decimal number as written in a query string: digits, optional sign, point and exponent; no hex, no blanks. */
 const DECIMAL = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 
-/** The issue message of a query number, quoting what was sent: the text as written, or each value of a repeated parameter. */
+/**
+ * The issue message of a query number, quoting the text as written. (A parameter given twice arrives as an array;
+ * the app's error handler words that case for every query parameter alike.)
+ */
 const numberIssue = (issue: { code?: string; input?: unknown; minimum?: unknown; maximum?: unknown; inclusive?: boolean }): string => {
   const input = issue.input;
   if (input === undefined) return "is empty: give a decimal number, or leave the parameter out";
-  if (Array.isArray(input)) return `is given ${input.length} times (${input.map((value) => JSON.stringify(value)).join(", ")}): give it once`;
   if (issue.code === "too_small") return `must be ${issue.inclusive ? "at least" : "above"} ${String(issue.minimum)}, got ${String(input)}`;
   if (issue.code === "too_big") return `must be ${issue.inclusive ? "at most" : "below"} ${String(issue.maximum)}, got ${String(input)}`;
   if (typeof input === "string") {
