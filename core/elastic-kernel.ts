@@ -22,7 +22,8 @@ export interface ElasticColumns {
   muRho: Float64Array;
 }
 
-const SQRT_FOUR_THIRDS = Math.sqrt(4 / 3);
+/** 2^27 + 1: splits a double into two halves whose products are exact (Dekker, 1971, Numerische Mathematik 18). */
+const SPLITTER = 134217729;
 const VS_NOT_BELOW_VP = flagBit("vs_not_below_vp");
 const NEGATIVE_BULK = flagBit("negative_bulk_modulus");
 const BELOW_SQRT2 = flagBit("vp_vs_below_sqrt2");
@@ -31,6 +32,33 @@ const RHO_RANGE = flagBit("density_out_of_range");
 const VP_RANGE = flagBit("vp_out_of_range");
 const VS_RANGE = flagBit("vs_out_of_range");
 const NOT_FINITE = flagBit("not_finite");
+
+/** The rounding error of `sum = x + y`, exactly (Knuth's two-sum, The Art of Computer Programming vol. 2, §4.2.2). */
+const sumError = (x: number, y: number, sum: number): number => {
+  const back = sum - x;
+  return x - (sum - back) + (y - back);
+};
+
+/**
+ * x0 + x1 + x2 + x3 (and x4 + x5 below) as if summed in twice a double's precision and then rounded (Ogita, Rump &
+ * Oishi, 2005, "Accurate sum and dot product", SIAM J. Sci. Comput. 26, algorithm Sum2): the sum keeps its digits
+ * however much the terms cancel. Two arities written out: the kernel's loop calls them per sample, without arrays.
+ */
+const compensatedSum4 = (x0: number, x1: number, x2: number, x3: number): number => {
+  const s1 = x0 + x1;
+  const s2 = s1 + x2;
+  const s3 = s2 + x3;
+  return s3 + (sumError(x0, x1, s1) + sumError(s1, x2, s2) + sumError(s2, x3, s3));
+};
+
+const compensatedSum = (x0: number, x1: number, x2: number, x3: number, x4: number, x5: number): number => {
+  const s1 = x0 + x1;
+  const s2 = s1 + x2;
+  const s3 = s2 + x3;
+  const s4 = s3 + x4;
+  const s5 = s4 + x5;
+  return s5 + (sumError(x0, x1, s1) + sumError(s1, x2, s2) + sumError(s2, x3, s3) + sumError(s3, x4, s4) + sumError(s4, x5, s5));
+};
 
 const outside = (value: number, min: number, max: number): boolean => value < min || value > max;
 
@@ -49,8 +77,10 @@ const SI: UnitSizes = { modulus: 1, impedance: 1, modulusDensity: 1 };
 /**
  * Isotropic elastic properties from Vp, Vs (m/s) and ρ (kg/m3), sample by sample
  * (Mavko, Mukerji & Dvorkin, The Rock Physics Handbook, 2nd ed., §2.2 / table 2.2.1):
- *   G = ρVs², M = ρVp², λ = M − 2G, K = M − 4G/3,
+ *   G = ρVs², M = ρVp², λ = M − 2G = ρ(Vp² − 2Vs²), K = M − 4G/3 = ρ(3Vp² − 4Vs²)/3,
  *   ν = (Vp² − 2Vs²) / (2(Vp² − Vs²)),  E = G(3Vp² − 4Vs²) / (Vp² − Vs²) = 2G(1 + ν).
+ * Every property is within a few units in the last place of its exact value for the given doubles, also where
+ * Vp/Vs is near √2 or √(4/3) and the differences cancel (test/core/elastic-exactness.test.ts).
  * Each value is computed in SI and divided by its unit's size as it is stored: the same quotient as dividing a
  * stored SI column afterwards, without a second pass over a whole well's columns (sizes of 1 give SI).
  * Adds the ratio and range flags to `flags`, and `not_finite` where finite inputs overflow a property; a sample whose mask meets `invalidMask` gets NaN.
@@ -91,18 +121,37 @@ export const computeElasticColumns = (
     if (outside(d, rhoMin, rhoMax)) mask |= RHO_RANGE;
     if (outside(p, vpMinMetresPerSecond, vpMaxMetresPerSecond)) mask |= VP_RANGE;
     if (outside(s, vsMinMetresPerSecond, vsMaxMetresPerSecond)) mask |= VS_RANGE;
-    const ratio = p / s;
-    if (s >= p) mask |= VS_NOT_BELOW_VP;
-    else if (ratio <= SQRT_FOUR_THIRDS) mask |= NEGATIVE_BULK;
-    else if (ratio < Math.SQRT2) mask |= BELOW_SQRT2;
-    if (ratio > vpVsMax) mask |= VP_VS_HIGH;
+    // p² and s² exactly, each as a double and the rest it rounded off (Dekker's product, no FMA in JavaScript):
+    // the differences below lose no digits where they cancel (Vp/Vs near √2 for ν and λ, near √(4/3) for K and E).
     const p2 = p * p;
     const s2 = s * s;
-    const g = d * s2;
-    const m = d * p2;
-    const lambda = m - 2 * g;
-    const e = (g * (3 * p2 - 4 * s2)) / (p2 - s2);
-    const nu = (p2 - 2 * s2) / (2 * (p2 - s2));
+    let split = SPLITTER * p;
+    const pHigh = split - (split - p);
+    const pLow = p - pHigh;
+    const p2Rest = pHigh * pHigh - p2 + 2 * pHigh * pLow + pLow * pLow;
+    split = SPLITTER * s;
+    const sHigh = split - (split - s);
+    const sLow = s - sHigh;
+    const s2Rest = sHigh * sHigh - s2 + 2 * sHigh * sLow + sLow * sLow;
+    // a = p² − 2s² (sign of ν and λ), b = p² − s², c = 3p² − 4s² (sign of K and E), each summed from exact terms:
+    // 3p² = 2p² + p² and 3·p2Rest = 2·p2Rest + p2Rest are each a sum and its exact rounding error.
+    const a = compensatedSum4(p2, -2 * s2, p2Rest, -2 * s2Rest);
+    const b = compensatedSum4(p2, -s2, p2Rest, -s2Rest);
+    const t0 = 2 * p2 + p2;
+    const threeRest = 2 * p2Rest + p2Rest;
+    const c = compensatedSum(t0, -4 * s2, sumError(2 * p2, p2, t0), threeRest, sumError(2 * p2Rest, p2Rest, threeRest), -4 * s2Rest);
+    const ratio = p / s;
+    // Ratio flags from the exact signs, so that a flag always agrees with the sign of ν and K it stands for. Where
+    // the squares underflow or overflow (b is 0 or NaN), no sign is known: `not_finite` below says why.
+    if (s >= p) mask |= VS_NOT_BELOW_VP;
+    else if (b > 0 && c <= 0) mask |= NEGATIVE_BULK;
+    else if (b > 0 && a < 0) mask |= BELOW_SQRT2;
+    if (ratio > vpVsMax) mask |= VP_VS_HIGH;
+    const g = d * s2 + d * s2Rest;
+    const m = d * p2 + d * p2Rest;
+    const lambda = d * a;
+    const e = (g * c) / b;
+    const nu = a / (2 * b);
     // Finite inputs beyond a double's range (rho 1e300 g/cm3 overflows ρVs²; Vp and Vs of 1e-200 m/s underflow
     // to 0/0) would give infinite or NaN properties. With Vs < Vp, |λ|, |K| and G are below M, |λρ| and μρ below
     // Mρ, and ρVs below ρVp: E, ν, Vp/Vs, Mρ and ρVp finite means every property is (NaN fails each `<`).
@@ -128,7 +177,7 @@ export const computeElasticColumns = (
     shearModulus[i] = g / modulus;
     pWaveModulus[i] = m / modulus;
     lameLambda[i] = lambda / modulus;
-    bulkModulus[i] = (m - (4 / 3) * g) / modulus;
+    bulkModulus[i] = (d * c) / 3 / modulus;
     poissonsRatio[i] = nu;
     youngsModulusPascals[i] = e;
     youngsModulus[i] = e / modulus;
