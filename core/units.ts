@@ -1,7 +1,11 @@
 /** Exact length of the international foot in metres (international yard and pound agreement, 1959). */
 export const METRES_PER_FOOT = 0.3048;
-/** Pascals in one pound-force per square inch (NIST SP 811, B.8: 6.894 757 293 168 E+03). */
-export const PASCALS_PER_PSI = 6894.757293168;
+/**
+ * Pascals in one pound-force per square inch: 0.45359237 kg × 9.80665 m/s² / (0.0254 m)², exact by the definitions
+ * of the pound, standard gravity and the inch (NIST SP 811, appendix B), = 6894.757293168361336… Pa; this is the
+ * double nearest to it (NIST's table B.8 rounds it to 6.894 757 E+03).
+ */
+export const PASCALS_PER_PSI = 6894.757293168362;
 
 /** Metres per second in one unit of each velocity unit. */
 export const VELOCITY_UNITS = { "m/s": 1, "km/s": 1000, "ft/s": METRES_PER_FOOT } as const;

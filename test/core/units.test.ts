@@ -12,8 +12,9 @@ import {
   VELOCITY_UNITS,
 } from "../../core/index.js";
 import { relativeError } from "../helpers/elastic.js";
+import { nearestDouble } from "../helpers/exact-rational.js";
 
-describe("unit conversions (exact factors: 1 ft = 0.3048 m; 1 psi = 6894.757293168 Pa, NIST SP 811 appendix B)", () => {
+describe("unit conversions (exact factors: 1 ft = 0.3048 m; 1 psi = 0.45359237 kg × 9.80665 m/s² / (0.0254 m)², NIST SP 811 appendix B)", () => {
   it("100 µs/ft is 3048 m/s and 10,000 ft/s; 200 µs/m is 5000 m/s", () => {
     expect(slownessToMetresPerSecond(100, "us/ft")).toBe(3048);
     expect(metresPerSecondToVelocity(3048, "ft/s")).toBeCloseTo(10000, 9);
@@ -22,9 +23,12 @@ describe("unit conversions (exact factors: 1 ft = 0.3048 m; 1 psi = 6894.7572931
     expect(slownessToMetresPerSecond(189, "us/ft")).toBeCloseTo(1612.698, 3);
   });
 
-  it("1 Mpsi = 6.894757293168 GPa and 1 psi = 6894.757293168 Pa", () => {
+  it("1 psi is the double nearest to 0.45359237 × 9.80665 / 0.0254² Pa = 6894.757293168361336… Pa, and 1 Mpsi = 6.894757293168 GPa", () => {
+    // The exact quotient of the defining constants, rounded once (the plain floating-point expression rounds three times).
+    const exact = nearestDouble([45359237n * 980665n, 64516n * 100000n]);
+    expect(modulusToPascals(1, "psi")).toBe(exact);
+    expect(exact).toBe(6894.757293168362);
     expect(modulusToPascals(1, "Mpsi") / 1e9).toBeCloseTo(6.894757293168, 12);
-    expect(modulusToPascals(1, "psi")).toBe(6894.757293168);
   });
 
   it("velocity ↔ slowness and every unit round trip returns the value to 1e-12", () => {

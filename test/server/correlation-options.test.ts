@@ -166,7 +166,7 @@ describe("correlation_options must lie in each option's declared range (Rickman 
   it("bounds inside their ranges still work: ν_max = 0.5 (G = 0) with a wide E span gives the published formula's value", async () => {
     const { response, body } = await withOptions({ e_min_mpsi: 0.5, e_max_mpsi: 12, nu_min: 0, nu_max: 0.5 });
     expect(response.statusCode).toBe(200);
-    const es = body.derived[LACY_SANDSTONE].values[0] / 6.894757293168; // GPa → Mpsi (NIST SP 811: 1 psi = 6894.757293168 Pa)
+    const es = body.derived[LACY_SANDSTONE].values[0] / 6.894757293168362; // GPa → Mpsi (1 psi = 6894.757293168362 Pa, core/units.ts)
     const nu = body.nu[0];
     // Rickman et al. (2008): BI = 50·((E − Emin)/(Emax − Emin) + (νmax − ν)/(νmax − νmin))
     expect(body.derived[RICKMAN].values[0]).toBeCloseTo(50 * ((es - 0.5) / 11.5 + (0.5 - nu) / 0.5), 9);

@@ -5,7 +5,7 @@ import { elasticColumnsResponse, elasticPointResponse } from "../../server/schem
 import { build } from "../helpers/build.js";
 import { relativeError } from "../helpers/elastic.js";
 
-const PSI = 6894.757293168; // Pa (NIST SP 811)
+const PSI = 6894.757293168362; // Pa (NIST SP 811)
 
 const get = async (query: string) => {
   const app = await build();

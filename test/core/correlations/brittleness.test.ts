@@ -4,7 +4,7 @@ import { isInputIssues } from "../../../core/input-issues.js";
 import { findCorrelation } from "../../../core/correlations/catalogue.js";
 
 /** Pascals in one Mpsi (NIST SP 811, B.8: 1 psi = 6 894.757 293 168 Pa). */
-const PA_PER_MPSI = 6894.757293168e6;
+const PA_PER_MPSI = 6894.757293168362e6;
 const rickman = () => findCorrelation("brittleness.rickman2008")!;
 const rock = (pairs: [number, number][]) => ({
   staticYoungsModulusPascals: Float64Array.from(pairs, ([mpsi]) => mpsi * PA_PER_MPSI),

@@ -8,7 +8,7 @@ import { isInOptionRange, MIN_RELATIVE_SPAN, POSITIVE_MODULUS } from "../../../c
 import { isInputIssues, type InputIssue } from "../../../core/input-issues.js";
 
 /** Pascals in one Mpsi (NIST SP 811, B.8: 1 psi = 6 894.757 293 168 Pa). */
-const PA_PER_MPSI = 6894.757293168e6;
+const PA_PER_MPSI = 6894.757293168362e6;
 const rickman = () => findCorrelation("brittleness.rickman2008")!;
 /** A shale of our own: static E 4 Mpsi, ν 0.25 (inside Rickman et al. 2008's default bounds). */
 const SHALE = { staticYoungsModulusPascals: Float64Array.of(4 * PA_PER_MPSI), poissonsRatio: Float64Array.of(0.25) };

@@ -4,7 +4,7 @@ import { findCorrelation } from "../../../core/correlations/catalogue.js";
 import type { Correlation } from "../../../core/correlations/correlation.js";
 
 /** Pascals in one Mpsi (NIST SP 811, B.8: 1 psi = 6 894.757 293 168 Pa). */
-const PA_PER_MPSI = 6894.757293168e6;
+const PA_PER_MPSI = 6894.757293168362e6;
 const GPA_PER_MPSI = PA_PER_MPSI / 1e9;
 
 const entry = (id: string): Correlation => {
