@@ -75,7 +75,7 @@ const MEANINGS: Record<FlagCode, [Severity, string]> = {
   ],
   outside_calibration: [
     "suspect",
-    "An input (or the prediction) of an applied empirical correlation lies outside the range of the data the correlation was fitted on; its value is kept but is an extrapolation.",
+    "An input (or the prediction) of an applied empirical correlation lies outside the range of the data the correlation was fitted on; its value is kept but is an extrapolation. Where the prediction is one no rock can have (a static modulus or strength at or below zero, a friction angle outside 0–90°), the value is null.",
   ],
 };
 

@@ -56,7 +56,7 @@ export const deriveProperties = (log: ElasticLog, request: CorrelationRequest, p
   if (zonesWithLists.length > 0 && depth !== undefined) {
     const members = zoneMembership(depth, zones);
     for (const { zone, z } of zonesWithLists) {
-      scopes.push({ members: members[z], correlations: correlationsById(zone.correlations ?? [], `${prefix}.zones[${z}].correlations`) });
+      scopes.push({ members: members[z], correlations: correlationsById(zone.correlations ?? [], `${prefix}.zones[${z}].correlations`), field: `zones[${z}].correlations` });
     }
   }
   const applied = [...new Set(scopes.flatMap((scope) => scope.correlations.map((correlation) => correlation.id)))];

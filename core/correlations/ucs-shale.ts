@@ -25,7 +25,7 @@ export const horsrud2001Modulus = defineCorrelation({
   publishedOutputUnit: "MPa",
   citation: HORSRUD_2001,
   compiledIn: CHANG_2006,
-  caveats: `Takes the static Young's modulus: the source's moduli come from the same laboratory tests as its strengths (from memory of the paper); pass a measured modulus or static_e.horsrud2001, not the dynamic log modulus. North Sea shales, mostly high-porosity Tertiary. No range is published in what we checked, so no sample is flagged. Formula checked against ${MAVKO_2009_HANDBOOK}.`,
+  caveats: `Takes the static Young's modulus: the source's moduli come from the same laboratory tests as its strengths (from memory of the paper); pass a measured modulus or static_e.horsrud2001, not the dynamic log modulus. North Sea shales, mostly high-porosity Tertiary. No range is published in what we checked, so no sample is flagged. Formula checked against ${MAVKO_2009_HANDBOOK} (table 7.14.2, eq. 17), which gives 7.22·E^0.712 separately, for strong, compacted shales after Chang et al.; some later texts quote that second form for shales in general, so check which one your field's core tests follow.`,
   compute: (x) => 7.97 * x[0] ** 0.91,
 });
 
