@@ -61,6 +61,19 @@ const base = (correlation: Correlation) => ({
   source: citationText(correlation.citation),
 });
 
+/**
+ * `fill_correlations`: the empirical correlations that predict Vs (vs_from) or density (rho_from), labelled as
+ * derived estimates are, with which samples they fill; undefined when the request fills nothing.
+ */
+export const gapFillAnswer = (request: { fillShear?: GapFill; fillDensity?: GapFill }) => {
+  const entry = (fill: GapFill) => ({ id: fill.correlation.id, ...base(fill.correlation), fill: fill.mode });
+  if (request.fillShear === undefined && request.fillDensity === undefined) return undefined;
+  return {
+    ...(request.fillShear && { vs: entry(request.fillShear) }),
+    ...(request.fillDensity && { rho: entry(request.fillDensity) }),
+  };
+};
+
 const nullable = (value: number): number | null => (Number.isNaN(value) ? null : value);
 
 /** `derived` of a single-sample answer. */

@@ -17,7 +17,7 @@ import {
   type SlownessUnit,
   type VelocityUnit,
 } from "../core/index.js";
-import { CAUTION, derivedColumnsAnswer } from "./derived-answer.js";
+import { CAUTION, derivedColumnsAnswer, gapFillAnswer } from "./derived-answer.js";
 import { OUTPUT_PROPERTIES, propertyColumns, type PropertyKey } from "./output-properties.js";
 import { fromPlausibilityLimits } from "./schemas/limits.js";
 
@@ -137,7 +137,8 @@ export const columnsAnswer = (
 
 /**
  * What the column answers of `POST /v1/elastic` and `POST /v1/logs` add after the columns, when asked: zone
- * statistics (over `depth`), how many samples gap filling predicted, and the empirical estimates with their caution.
+ * statistics (over `depth`), how many samples gap filling predicted and with which correlation, and the empirical
+ * estimates, with the caution whenever the answer rests on an empirical correlation.
  */
 export const answerExtras = (
   log: ElasticLog,
@@ -147,6 +148,7 @@ export const answerExtras = (
   derived: Map<string, DerivedColumn> | undefined,
 ) => ({
   ...(zones && depth && { zones: summariseZones(depth, zones, propertyColumns(log), log.flags, log.invalidMask) }),
-  ...((request.fillShear || request.fillDensity) && { filled: log.filled }),
-  ...(derived && { derived: derivedColumnsAnswer(derived), caution: CAUTION }),
+  ...((request.fillShear || request.fillDensity) && { filled: log.filled, fill_correlations: gapFillAnswer(request) }),
+  ...(derived && { derived: derivedColumnsAnswer(derived) }),
+  ...((derived || request.fillShear || request.fillDensity) && { caution: CAUTION }),
 });

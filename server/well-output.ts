@@ -144,6 +144,9 @@ const readingNotes = (warnings: readonly { line?: number; message: string }[]): 
         ...warnings.map((warning) => `  ${warning.line === undefined ? "" : `line ${warning.line}: `}${warning.message.replace(/[\r\n]+/g, " ")}`),
       ];
 
+/** Text for a LAS description or ~Other line: no colon, which delimits a LAS line's description (CWLS LAS 2.0). */
+const lasSafe = (text: string): string => text.replaceAll("doi:", "doi ").replaceAll(":", " -");
+
 /** The options used, as ~Parameter items; `written` names curve `c` of the file as the answer's ~Curve does. */
 const optionItems = (plan: ConversionPlan, written: (c: number) => string): LasItemToWrite[] => {
   const { computation: request, curves } = plan;
@@ -151,7 +154,9 @@ const optionItems = (plan: ConversionPlan, written: (c: number) => string): LasI
   const source = (role: "vp" | "vs" | "rho") => {
     const choice = curves[role];
     const fill = role === "vs" ? request.fillShear : role === "rho" ? request.fillDensity : undefined;
-    return choice ? `${written(choice.index)} ${choice.unit}` : `PREDICTED BY ${fill?.correlation.id}`;
+    if (choice === undefined) return `PREDICTED BY ${fill?.correlation.id}`;
+    const read = `${written(choice.index)} ${choice.unit}`;
+    return fill === undefined ? read : `${read}; GAPS PREDICTED BY ${fill.correlation.id}`;
   };
   return [
     { mnemonic: "EL_VERSION", value: SERVICE_VERSION, description: "ELASTILOG VERSION" },
@@ -232,7 +237,7 @@ const lasOutput = (header: WellHeader, plan: ConversionPlan, computed: NumberFor
           mnemonic: derivedCurveName(correlation.id),
           unit: correlation.outputUnit,
           // LAS descriptions end the line and may not hold a colon (CWLS LAS 2.0, the colon delimits them).
-          description: `EMPIRICAL ${correlation.kind.toUpperCase()} ${citationText(correlation.citation).replaceAll("doi:", "doi ").replaceAll(":", " -")}`,
+          description: `EMPIRICAL ${correlation.kind.toUpperCase()} ${lasSafe(citationText(correlation.citation))}`,
           format: computed,
         }));
         const outputs: CurveMeta[] = [
@@ -243,7 +248,14 @@ const lasOutput = (header: WellHeader, plan: ConversionPlan, computed: NumberFor
         // Input names made valid LAS mnemonics, unique, and never one of the computed curves' (the original kept in the description).
         const inputs = lasCurveNames(input.curves, computedNames(rows.derived));
         const curves = [...inputs, ...outputs];
-        const caution = estimates.length === 0 ? [] : ["EL_ curves named after a correlation are empirical estimates. " + CAUTION];
+        const fills = [
+          ["Vs", plan.computation.fillShear, "estimated_vs"],
+          ["Bulk density", plan.computation.fillDensity, "estimated_rho"],
+        ] as const;
+        const fillNotes = fills.flatMap(([what, fill, flag]) =>
+          fill === undefined ? [] : [`${what} predicted by ${fill.correlation.id} (${fill.correlation.formula}) where flagged ${flag}, an empirical estimate: ${lasSafe(citationText(fill.correlation.citation))}`],
+        );
+        const caution = estimates.length === 0 && fillNotes.length === 0 ? [] : [...fillNotes, (estimates.length === 0 ? "" : "EL_ curves named after a correlation are empirical estimates. ") + CAUTION];
         writer = createLasTextWriter({
           header: header.format === "las" ? header.header.sections : undefined,
           curves,

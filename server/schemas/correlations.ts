@@ -93,6 +93,19 @@ const derivedBase = {
   source: z.string().meta({ description: "Full citation of the correlation." }),
 };
 
+const fillEntry = z.object({
+  id: z.string(),
+  ...derivedBase,
+  fill: fillMode,
+});
+
+export const fillCorrelations = z
+  .object({ vs: fillEntry.optional(), rho: fillEntry.optional() })
+  .meta({
+    id: "FillCorrelations",
+    description: "The empirical correlations that predicted Vs (vs_from) and bulk density (rho_from); the samples they filled are flagged estimated_vs and estimated_rho.",
+  });
+
 export const derivedPoint = z
   .record(z.string(), z.object({ ...derivedBase, value: z.number().nullable(), outside_calibration: z.boolean() }))
   .meta({ id: "DerivedPoint", description: "Empirical estimates keyed by correlation id." });
@@ -103,7 +116,7 @@ export const derivedColumns = z
     z.object({
       ...derivedBase,
       values: z.array(z.number().nullable()).meta({ description: "One value per input row; null where an input is absent or the sample is outside every scope that lists this correlation." }),
-      outside_calibration: z.array(z.int()).meta({ description: "Rows whose inputs lie outside the source's calibration range (values kept, flagged)." }),
+      outside_calibration: z.array(z.int()).meta({ description: "Rows whose inputs or prediction lie outside the source's calibration range (values kept, flagged), and rows whose prediction no rock can have (a static modulus or strength at or below zero, a friction angle outside 0–90°: value null)." }),
     }),
   )
   .meta({ id: "DerivedColumns", description: "Empirical estimates keyed by correlation id, row-aligned with the input." });

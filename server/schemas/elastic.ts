@@ -3,7 +3,7 @@ import { USUAL_NULL_VALUE } from "../../core/index.js";
 import { decimalNumber, queryNumber } from "./query-number.js";
 import { flagSummary, pointFlag, sampleFlag, severity } from "./flags.js";
 import { bodyLimitFields, limitFields, limitsUsed } from "./limits.js";
-import { correlationIds, correlationIdText, correlationOptions, derivedColumns, derivedPoint, fillMode } from "./correlations.js";
+import { correlationIds, correlationIdText, correlationOptions, derivedColumns, derivedPoint, fillCorrelations, fillMode } from "./correlations.js";
 import { zoneList, zoneSummarySchema } from "./zones.js";
 import { densityUnit, depthUnit, impedanceUnit, modulusUnit, slownessUnit, unitsUsed, velocityUnit, DEFAULT_UNITS } from "./units.js";
 
@@ -95,8 +95,9 @@ export const elasticPointResponse = z
     rho: propertyValue("Bulk density used (measured, or predicted by rho_from), in g/cm3 whatever the density unit of the input (as impedances and lambda*rho use); null when unusable."),
     valid: z.boolean().meta({ description: "False when an invalid flag made the moduli null." }),
     flags: z.array(pointFlag),
+    fill_correlations: fillCorrelations.optional(),
     derived: derivedPoint.optional(),
-    caution: z.string().optional().meta({ description: "Present whenever derived (empirical) values are." }),
+    caution: z.string().optional().meta({ description: "Present whenever the answer rests on an empirical correlation (correlations, vs_from, rho_from)." }),
     units: unitsUsed,
     limits: limitsUsed,
   })
@@ -181,6 +182,10 @@ export const elasticColumnFields: ReadonlySet<string> = new Set(
 const resultColumn = (description: string) =>
   z.array(z.number().nullable()).meta({ description: `${description} One value per input row; null where the sample is invalid.` });
 
+/** The inputs as used: shown for invalid samples too, since they say why a sample is invalid (a Vs above Vp). */
+const inputColumn = (description: string) =>
+  z.array(z.number().nullable()).meta({ description: `${description} One value per input row, invalid samples included; null where the value itself is absent or unusable.` });
+
 export const elasticColumnsResponse = z
   .object({
     count: z.int().meta({ description: "Rows in the input and in every column of the answer." }),
@@ -198,9 +203,9 @@ export const elasticColumnsResponse = z
     s_impedance: resultColumn("S impedance."),
     lambda_rho: resultColumn("lambda*rho."),
     mu_rho: resultColumn("mu*rho."),
-    vp: resultColumn("Compressional velocity used, in the velocity unit (null where unusable)."),
-    vs: resultColumn("Shear velocity used, in the velocity unit (null where unusable)."),
-    rho: resultColumn("Bulk density used (measured, or predicted by rho_from), in g/cm3 whatever the density unit of the input (null where unusable)."),
+    vp: inputColumn("Compressional velocity used, in the velocity unit."),
+    vs: inputColumn("Shear velocity used (measured, or predicted by vs_from), in the velocity unit."),
+    rho: inputColumn("Bulk density used (measured, or predicted by rho_from), in g/cm3 whatever the density unit of the input."),
     flags: z.array(sampleFlag).meta({ description: "Every flag raised, in row order." }),
     flag_legend: z
       .record(z.string(), z.object({ severity, meaning: z.string() }))
@@ -211,7 +216,8 @@ export const elasticColumnsResponse = z
     zones: z.array(zoneSummarySchema).optional().meta({ description: "Per zone and property statistics, when zones were given." }),
     derived: derivedColumns.optional(),
     filled: z.object({ vs: z.int(), rho: z.int() }).optional().meta({ description: "Samples whose Vs or density was predicted (vs_from, rho_from)." }),
-    caution: z.string().optional().meta({ description: "Present whenever derived (empirical) values are." }),
+    fill_correlations: fillCorrelations.optional(),
+    caution: z.string().optional().meta({ description: "Present whenever the answer rests on an empirical correlation (correlations, vs_from, rho_from)." }),
   })
   .meta({ id: "ElasticColumns", description: "Dynamic elastic properties per sample, row-aligned with the input." });
 
