@@ -10,11 +10,11 @@ export interface Zone {
   base: number;
 }
 
-/** Statistics of one property over the finite values of a zone; null when it has none. */
+/** Statistics of one property over the finite values of a zone's valid samples; null when it has none. */
 export interface PropertyStatistics {
   /** Samples in the zone. */
   count: number;
-  /** Samples in the zone whose value is finite. */
+  /** Valid samples in the zone whose value is finite: the values the statistics are over. */
   valid: number;
   mean: number | null;
   min: number | null;
@@ -37,7 +37,8 @@ export interface ZoneSummary {
   properties: Record<string, PropertyStatistics>;
 }
 
-const checkZones = (zones: readonly Zone[]): void => {
+/** Refuses zones without finite limits or with a base not deeper than the top (`InputIssues` naming `zones[i].top|base`). */
+export const checkZones = (zones: readonly Zone[]): void => {
   const issues: InputIssue[] = [];
   zones.forEach((zone, i) => {
     if (!Number.isFinite(zone.top)) issues.push({ field: `zones[${i}].top`, message: "must be a finite depth" });
@@ -68,22 +69,23 @@ export const zoneMembership = (depth: Float64Array, zones: readonly Zone[]): Uin
   });
 };
 
-const statistics = (column: Float64Array, members: Uint32Array, scratch: Float64Array): PropertyStatistics => {
+/** Statistics of a column over a zone's valid samples (`count` is the zone's size); NaN and infinite values are left out. */
+const statistics = (column: Float64Array, count: number, validMembers: Uint32Array, scratch: Float64Array): PropertyStatistics => {
   let valid = 0;
   let sum = 0;
-  for (let j = 0; j < members.length; j++) {
-    const value = column[members[j]];
+  for (let j = 0; j < validMembers.length; j++) {
+    const value = column[validMembers[j]];
     if (Number.isFinite(value)) {
       scratch[valid++] = value;
       sum += value;
     }
   }
   if (valid === 0) {
-    return { count: members.length, valid, mean: null, min: null, p10: null, p50: null, p90: null, max: null };
+    return { count, valid, mean: null, min: null, p10: null, p50: null, p90: null, max: null };
   }
   const sorted = scratch.subarray(0, valid).sort();
   return {
-    count: members.length,
+    count,
     valid,
     mean: sum / valid,
     min: sorted[0],
@@ -99,8 +101,10 @@ const statistics = (column: Float64Array, members: Uint32Array, scratch: Float64
  * those at depth = base as well unless another zone of the request starts there: contiguous
  * zones share no sample, and a zone alone keeps its base sample. Membership goes by depth value,
  * so the depth column may run in either direction; a NaN depth is in no zone, and zones may overlap.
- * Percentiles interpolate between closest ranks (Hyndman & Fan 1996, definition 7); NaN and
- * infinite values are left out of every statistic.
+ * Every statistic is over the zone's valid samples (no flag of `invalidMask`), inputs echoed beside
+ * the properties (Vp, Vs, ρ) included, so that a mispicked shear value flagged `vs_not_below_vp` counts
+ * in no statistic; NaN and infinite values are left out too. Percentiles interpolate between closest
+ * ranks (Hyndman & Fan 1996, definition 7).
  */
 export const summariseZones = (
   depth: Float64Array,
@@ -117,7 +121,7 @@ export const summariseZones = (
   });
   checkZones(zones);
   const contains = zoneMembershipTests(zones);
-  const memberBuffer = new Uint32Array(depth.length);
+  const validBuffer = new Uint32Array(depth.length);
   const scratch = new Float64Array(depth.length);
   return zones.map(({ name, top, base }, z) => {
     let count = 0;
@@ -125,14 +129,14 @@ export const summariseZones = (
     let flagged = 0;
     for (let i = 0; i < depth.length; i++) {
       if (!contains[z](depth[i])) continue;
-      memberBuffer[count++] = i;
+      count++;
       const mask = flags[i];
       if (mask !== 0) flagged++;
-      if ((mask & invalidMask) === 0) valid++;
+      if ((mask & invalidMask) === 0) validBuffer[valid++] = i;
     }
-    const members = memberBuffer.subarray(0, count);
+    const validMembers = validBuffer.subarray(0, valid);
     const summaries: Record<string, PropertyStatistics> = {};
-    for (const [property, column] of namedProperties) summaries[property] = statistics(column, members, scratch);
+    for (const [property, column] of namedProperties) summaries[property] = statistics(column, count, validMembers, scratch);
     return { name, top, base, count, valid, flagged_fraction: count === 0 ? null : flagged / count, properties: summaries };
   });
 };

@@ -51,16 +51,24 @@ export const lasCurveLayoutOf = (header: { readonly sections: readonly LasSectio
 export const lasIndexItems = (index: LasCurveToWrite, nullText: string): LasItemToWrite[] => {
   const format = (value: number): string => (Number.isFinite(value) ? formatLasNumber(value, index.format ?? SHORTEST) : nullText);
   const values = index.values;
-  const first = values[0];
-  const last = values[values.length - 1];
-  let step = values.length > 1 ? (last - first) / (values.length - 1) : 0;
+  // STRT and STOP are the first and last index values present (an absent depth is no depth); a sampling
+  // interrupted by an absent depth has no constant step, so STEP is then 0 (CWLS LAS 2.0, ~W section).
+  let firstAt = 0;
+  while (firstAt < values.length && !Number.isFinite(values[firstAt])) firstAt++;
+  let lastAt = values.length - 1;
+  while (lastAt > firstAt && !Number.isFinite(values[lastAt])) lastAt--;
+  const present = firstAt < values.length;
+  const first = values[firstAt];
+  const last = values[lastAt];
+  const complete = present && firstAt === 0 && lastAt === values.length - 1;
+  let step = complete && values.length > 1 ? (last - first) / (values.length - 1) : 0;
   const tolerance = Math.abs(step) * 1e-3;
   for (let i = 1; i < values.length && step !== 0; i++) {
     if (!(Math.abs(values[i] - values[i - 1] - step) <= tolerance)) step = 0;
   }
   return [
-    { mnemonic: "STRT", unit: index.unit, value: values.length > 0 ? format(first) : "0", description: "START DEPTH" },
-    { mnemonic: "STOP", unit: index.unit, value: values.length > 0 ? format(last) : "0", description: "STOP DEPTH" },
+    { mnemonic: "STRT", unit: index.unit, value: present ? format(first) : "0", description: "START DEPTH" },
+    { mnemonic: "STOP", unit: index.unit, value: present ? format(last) : "0", description: "STOP DEPTH" },
     { mnemonic: "STEP", unit: index.unit, value: readable(step), description: "STEP" },
   ];
 };

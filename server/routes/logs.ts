@@ -3,7 +3,7 @@ import multipart from "@fastify/multipart";
 import { errorCodes, type FastifyInstance, type FastifyReply, type FastifyRequest } from "fastify";
 import type { ZodTypeProvider } from "fastify-type-provider-zod";
 import { z } from "zod";
-import { isInputIssues, type Zone } from "../../core/index.js";
+import { checkZones, isInputIssues, type Zone } from "../../core/index.js";
 import { convertLogs, type ZoneWithList } from "../logs-task.js";
 import { sendAnswer } from "../answer-pool.js";
 import { convertWellStream } from "../well-stream.js";
@@ -45,6 +45,13 @@ const zonesFromQuery = (text: string | undefined): Zone[] | undefined => {
   if (text === undefined) return undefined;
   const parsed = parseZonesText(text);
   if ("error" in parsed) throw new ProblemError("invalid-request", `zones: ${parsed.error}.`, [{ field: "query.zones", message: parsed.error }]);
+  // Limits are checked here, so that a problem names the query, where these zones came from.
+  try {
+    checkZones(parsed.zones);
+  } catch (error) {
+    if (!isInputIssues(error)) throw error;
+    throw invalidFields(error.issues.map((issue) => ({ field: `query.${issue.field}`, message: issue.message })));
+  }
   return parsed.zones;
 };
 

@@ -40,7 +40,7 @@ export const zoneSummarySchema = z
           max: statistic,
         }),
       )
-      .meta({ description: "Per property: statistics over the zone's valid values (percentiles by linear interpolation, Hyndman & Fan 1996 definition 7); null when there is none." }),
+      .meta({ description: "Per property: statistics over the zone's valid samples (no invalidating flag; the echoed inputs vp, vs and rho too, so a sample flagged invalid counts in no statistic), percentiles by linear interpolation (Hyndman & Fan 1996 definition 7; p10 is the 10th percentile, the low value, not the high estimate of the reserves convention); null when there is none." }),
   })
   .meta({ id: "ZoneSummary" });
 

@@ -125,6 +125,17 @@ describe("summariseZones", () => {
     expect(allNaN.properties.youngs_modulus).toMatchObject({ count: 1, valid: 0, mean: null, p50: null });
   });
 
+  it("leaves invalid samples out of every statistic, inputs echoed beside the properties included (a mispicked Vs ≥ Vp counts nowhere)", () => {
+    // Row 1 is a mispicked shear arrival: Vs above Vp, flagged vs_not_below_vp (invalid); its Vs echo stays finite.
+    const vs = Float64Array.of(2000, 4000, 2100, 2200);
+    const mask = Uint32Array.of(0, flagBit("vs_not_below_vp"), 0, flagBit("vp_vs_high"));
+    const [zone] = summariseZones(Float64Array.of(1, 2, 3, 4), [{ name: "Z", top: 0, base: 5 }], { vs }, mask, INVALID);
+    expect(zone).toMatchObject({ count: 4, valid: 3, flagged_fraction: 0.5 });
+    // A suspect flag (vp_vs_high) keeps its sample in the statistics.
+    expect(zone.properties.vs).toMatchObject({ count: 4, valid: 3, min: 2000, p50: 2100, max: 2200 });
+    expect(zone.properties.vs.mean).toBeCloseTo(2100, 12);
+  });
+
   it("ignores infinite values as it ignores NaN", () => {
     const [zone] = summariseZones(
       Float64Array.of(1, 2, 3),

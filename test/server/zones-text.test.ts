@@ -46,6 +46,12 @@ describe("zones as name:top:base;… in a query string", () => {
     expect(response.json().errors).toEqual([{ field: "query.zones", message: expect.stringContaining('got "0x10"') }]);
   });
 
+  it("POST /v1/logs?zones=a:16:17;b:18:17 is a 400 naming query.zones[1].base, where the zone was given", async () => {
+    const response = await logs("a:16:17;b:18:17");
+    expect(response.statusCode).toBe(400);
+    expect(response.json().errors).toEqual([{ field: "query.zones[1].base", message: "must be deeper than the top (18), got 17" }]);
+  });
+
   it("POST /v1/logs?zones=a:16:17;;b:17:20 is a 400, and a:16:17;b:17:20; answers both zones", async () => {
     const refused = await logs("a:16:17;;b:17:20");
     expect(refused.statusCode).toBe(400);

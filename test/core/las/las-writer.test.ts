@@ -133,6 +133,15 @@ describe("writeLas for a new file", () => {
     expect(parseLas(written({ curves: [single], nullValue: -999.25 })).well).toMatchObject({ startIndex: 10, stopIndex: 10, step: 0 });
   });
 
+  it("takes STRT and STOP from the first and last depths present, and writes STEP 0 when a depth is absent (CWLS LAS 2.0, ~W: STRT and STOP are the first and last index values)", () => {
+    const leading = { ...depth, values: new Float64Array([NaN, 10, 10.5, 11]) };
+    expect(parseLas(written({ curves: [leading], nullValue: -999.25 })).well).toMatchObject({ startIndex: 10, stopIndex: 11, step: 0 });
+    const trailing = { ...depth, values: new Float64Array([10, 10.5, 11, NaN]) };
+    expect(parseLas(written({ curves: [trailing], nullValue: -999.25 })).well).toMatchObject({ startIndex: 10, stopIndex: 11, step: 0 });
+    const inside = { ...depth, values: new Float64Array([10, NaN, 11]) };
+    expect(parseLas(written({ curves: [inside], nullValue: -999.25 })).well).toMatchObject({ startIndex: 10, stopIndex: 11, step: 0 });
+  });
+
   it("writes one sample per line with CRLF line ends and the columns lined up", () => {
     const text = written({ curves: [depth, youngsModulus], nullValue: -999.25 });
     const data = text.split("\r\n").slice(-5, -1);
