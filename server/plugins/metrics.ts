@@ -1,7 +1,9 @@
 import type { FastifyInstance } from "fastify";
 import fp from "fastify-plugin";
 import { Counter, Histogram, Registry, collectDefaultMetrics } from "prom-client";
+import { z } from "zod";
 import { FLAG_CODES, type FlagCode } from "../../core/index.js";
+import { pathProblemResponses, problemResponse } from "../schemas/problem.js";
 
 /** What routes report after a conversion; exposed as `app.elasticMetrics`. */
 export interface ElasticMetrics {
@@ -96,7 +98,21 @@ async function metricsPlugin(app: FastifyInstance): Promise<void> {
 
   app.get(
     METRICS_PATH,
-    { schema: { tags: ["operations"], summary: "Metrics of this process in the Prometheus text exposition format." } },
+    {
+      schema: {
+        tags: ["operations"],
+        summary: "Metrics of this process in the Prometheus text exposition format.",
+        response: {
+          200: {
+            description: "The metrics, in the Prometheus text exposition format 0.0.4.",
+            content: { "text/plain": { schema: z.string().meta({ description: "Prometheus text exposition format 0.0.4." }) } },
+          },
+          // 401 only when METRICS_REQUIRE_AUTH asks for an API key here.
+          401: problemResponse(401),
+          ...pathProblemResponses,
+        },
+      },
+    },
     async (_request, reply) => reply.type(registry.contentType).send(await registry.metrics()),
   );
 }

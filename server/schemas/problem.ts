@@ -46,7 +46,7 @@ const STATUS_MEANINGS: Record<ProblemStatus, string> = {
   406: "None of the media types in Accept can be produced.",
   408: "The request line, headers or body did not arrive in time; the connection is closed.",
   413: "The body, or the number of samples, is over the limit.",
-  415: "The body's content type is not accepted here.",
+  415: "The body's content type, or a content coding named in Content-Encoding, is not accepted here.",
   422: "The file cannot be read (the line is named) or its curves cannot be used as asked.",
   429: "Too many requests from this client in the window (only when the service runs with RATE_LIMIT_MAX); wait the seconds in Retry-After.",
   431: "The request headers are too large.",
@@ -65,14 +65,31 @@ export const problemResponse = (status: ProblemStatus) => ({
   content: { [PROBLEM_MEDIA_TYPE]: { schema: problemSchema } },
 });
 
-/** The error answers any `/v1/` request may get, whatever it asks: refused, late, too large in its headers, or a fault. */
+/**
+ * The error answers any `/v1/` request may get, whatever it asks: refused (a Content-Encoding this service does not
+ * decode is a 415 on every path, plugins/body-framing.ts), late, too large in its headers, or a fault.
+ */
 export const requestProblemResponses = {
   401: problemResponse(401),
   408: problemResponse(408),
+  415: problemResponse(415),
   429: problemResponse(429),
   431: problemResponse(431),
   500: problemResponse(500),
   503: problemResponse(503),
+} as const;
+
+/**
+ * The error answers a request outside `/v1/` may get (probes, metrics, the contract, problem types): a body
+ * where none is read (400) or a Content-Encoding (415, both plugins/body-framing.ts), late (408), too large in
+ * its headers (431), or a fault (500).
+ */
+export const pathProblemResponses = {
+  400: problemResponse(400),
+  408: problemResponse(408),
+  415: problemResponse(415),
+  431: problemResponse(431),
+  500: problemResponse(500),
 } as const;
 
 /** The error answers of a `/v1/` operation that takes data: those of any request, and those of its query or body. */
@@ -80,7 +97,6 @@ export const commonProblemResponses = {
   400: problemResponse(400),
   406: problemResponse(406),
   413: problemResponse(413),
-  415: problemResponse(415),
   ...requestProblemResponses,
 } as const;
 

@@ -21,7 +21,7 @@ export const densityUnit = z
   .meta({ id: "DensityUnit", description: "Unit of bulk density (RHOB)." });
 export const modulusUnit = z.enum(keysOf(MODULUS_UNITS)).meta({
   id: "ModulusUnit",
-  description: "Unit of the moduli E, G, K, lambda, M. psi uses 1 psi = 6894.757293168 Pa; Mpsi is 10^6 psi.",
+  description: "Unit of the moduli E, G, K, lambda, M. psi uses 1 psi = 0.45359237 kg × 9.80665 m/s² / (0.0254 m)² = 6894.757293168361… Pa; Mpsi is 10^6 psi.",
 });
 export const depthUnit = z.enum(keysOf(DEPTH_UNITS)).meta({ id: "DepthUnit", description: "Unit of depths (echoed only)." });
 export const impedanceUnit = z.enum(keysOf(IMPEDANCE_UNITS)).meta({
@@ -40,11 +40,14 @@ export const DEFAULT_UNITS = {
 
 export const unitsUsed = z
   .object({
-    velocity: velocityUnit,
-    slowness: slownessUnit,
-    density: densityUnit,
-    modulus: modulusUnit,
-    impedance: impedanceUnit,
+    velocity: velocityUnit.meta({ description: "Unit of vp and vs in the answer (and of velocities given in the request)." }),
+    slowness: slownessUnit.meta({ description: "Unit slownesses (DTC, DTS) were read in; the answer holds none." }),
+    density: densityUnit.meta({ description: "Unit the density input was read in. The answer's rho is in g/cm3 whatever this unit, as impedances and lambda_rho use." }),
+    modulus: modulusUnit.meta({ description: "Unit of E, G, K, lambda and M in the answer." }),
+    impedance: impedanceUnit.meta({ description: "Unit of p_impedance and s_impedance in the answer." }),
     lambda_rho: z.string().meta({ description: "Unit of lambda_rho and mu_rho: the modulus unit times g/cm3." }),
   })
-  .meta({ id: "UnitsUsed", description: "The units of every number in the answer, inputs and outputs." });
+  .meta({
+    id: "UnitsUsed",
+    description: "Units of the request's inputs as read and of the answer's numbers: vp and vs are in velocity, rho always in g/cm3, the moduli in modulus, the impedances in impedance, lambda_rho and mu_rho in lambda_rho, Poisson's ratio and vp_vs have none. Empirical estimates carry their own unit.",
+  });

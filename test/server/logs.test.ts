@@ -4,6 +4,8 @@ import { describe, expect, it } from "vitest";
 import { parseCsv, parseLas } from "../../core/index.js";
 import { logsJsonResponse } from "../../server/schemas/logs.js";
 import { build } from "../helpers/build.js";
+import { multipartBody } from "../helpers/multipart.js";
+
 
 const DEMO_LAS = readFileSync(new URL("../../examples/demo-well.las", import.meta.url));
 const DEMO_CSV = readFileSync(new URL("../../examples/demo-well.csv", import.meta.url));
@@ -15,19 +17,6 @@ const SMALL_CSV = "DEPT[m],DTC[us/ft],DTS[us/ft],RHOB[g/cm3]\r\n1000.0,100,200,2
 const upload = async (body: Buffer | string | Readable, query = "", headers: Record<string, string> = { "content-type": "text/plain" }, config = {}) => {
   const app = await build({ config });
   return app.inject({ method: "POST", url: `/v1/logs${query}`, payload: body, headers });
-};
-
-const multipartBody = (parts: { name: string; filename?: string; content: string | Buffer }[]) => {
-  const boundary = "----elastilog-test-boundary";
-  const chunks = parts.flatMap((part) => [
-    Buffer.from(
-      `--${boundary}\r\nContent-Disposition: form-data; name="${part.name}"${part.filename ? `; filename="${part.filename}"` : ""}\r\n` +
-        `${part.filename ? "Content-Type: application/octet-stream\r\n" : ""}\r\n`,
-    ),
-    Buffer.isBuffer(part.content) ? part.content : Buffer.from(part.content),
-    Buffer.from("\r\n"),
-  ]);
-  return { body: Buffer.concat([...chunks, Buffer.from(`--${boundary}--\r\n`)]), contentType: `multipart/form-data; boundary=${boundary}` };
 };
 
 describe("POST /v1/logs", () => {

@@ -1,4 +1,5 @@
 import Fastify, { type FastifyInstance, type FastifyServerOptions } from "fastify";
+import { validatorCompiler } from "fastify-type-provider-zod";
 import { afterEach } from "vitest";
 import { installProblemHandlers } from "../../../server/plugins/problem-handlers.js";
 
@@ -18,6 +19,9 @@ export const bareApp = async (
 ): Promise<FastifyInstance> => {
   const app = Fastify(serverOptions) as unknown as FastifyInstance;
   open.push(app);
+  // As app.ts: routes declare zod schemas, which Fastify's own compilers cannot read.
+  app.setValidatorCompiler(validatorCompiler);
+  app.setSerializerCompiler(() => (data) => JSON.stringify(data));
   installProblemHandlers(app, { bodyLimitBytes: 1024 * 1024 });
   await registerPlugin(app);
   app.get("/v1/elastic", async () => ({ E: 20 }));
