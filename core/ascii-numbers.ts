@@ -11,6 +11,8 @@ import { MAX_SHORTEST_BYTES, writeShortestDecimal } from "./shortest-decimal.js"
 export const MAX_EXACT_DIGITS = 15;
 
 const POWERS = Array.from({ length: 23 }, (_, k) => 10 ** k);
+/** 10^0 … 10^9, the powers of ten below 2^31, as 32-bit integers. */
+const SMALL_POWERS = Int32Array.from({ length: 10 }, (_, k) => 10 ** k);
 /** Below this magnitude Number::toString writes an exponent (1e-7), and so do these writers. */
 const SMALLEST_PLAIN = 1e-6;
 /** Integers below this are exact doubles and are unique at 15 digits: m / 10^k reads back as one double only. */
@@ -57,8 +59,10 @@ export class AsciiText {
   padFrom(from: number, count: number): void {
     if (count <= 0) return;
     this.ensure(count);
-    this.buffer.copyWithin(from + count, from, this.length);
-    this.buffer.fill(SPACE, from, from + count);
+    // Byte loops, not copyWithin and fill: a number's few bytes move faster than a built-in call is made.
+    const buffer = this.buffer;
+    for (let i = this.length - 1; i >= from; i--) buffer[i + count] = buffer[i];
+    for (let i = from; i < from + count; i++) buffer[i] = SPACE;
     this.length += count;
   }
 
@@ -96,28 +100,37 @@ export class AsciiText {
     return bytes;
   }
 
-  /** Writes the integer `mantissa` (0 ≤ mantissa < 1e15) with a decimal point `decimals` places from its right, trailing zeros dropped. */
+  /**
+   * Writes the integer `mantissa` (0 ≤ mantissa < 1e15) with a decimal point `decimals` (0–22) places from its right,
+   * trailing zeros dropped. Below 2^31, digit by digit in 32-bit integer arithmetic (what logs hold, and fast); a
+   * longer mantissa as `String(mantissa / 10^decimals)`, which is the same text: the quotient is the double nearest
+   * the decimal, and a decimal of at most 15 significant digits is the shortest that reads back as its double.
+   */
   decimal(negative: boolean, mantissa: number, decimals: number): void {
-    let m = mantissa;
-    let k = decimals;
+    if (mantissa >= 2147483648) {
+      this.ascii(String((negative ? -mantissa : mantissa) / POWERS[decimals]));
+      return;
+    }
+    let m = mantissa | 0;
+    let k = decimals | 0;
     while (k > 0) {
-      const next = Math.floor(m / 10);
+      const next = (m / 10) | 0;
       if (m !== next * 10) break;
       m = next;
       k--;
     }
     let digits = 1;
-    while (digits < 16 && m >= POWERS[digits]) digits++;
+    while (digits < 10 && m >= SMALL_POWERS[digits]) digits++;
     const integerDigits = digits > k ? digits - k : 1;
     const size = (negative ? 1 : 0) + integerDigits + (k > 0 ? 1 + k : 0);
     this.ensure(size);
     const buffer = this.buffer;
     let at = this.length + size;
     this.length = at;
-    // Digits from the right, the point after the k-th; below 2^31 in integer arithmetic, which is faster.
+    // Digits from the right, the point after the k-th.
     for (let i = 0; i < k + integerDigits; i++) {
       if (i === k && k > 0) buffer[--at] = DOT;
-      const next = m < 2147483648 ? (m / 10) | 0 : Math.floor(m / 10);
+      const next = (m / 10) | 0;
       buffer[--at] = ZERO + (m - next * 10);
       m = next;
     }
@@ -171,7 +184,9 @@ export const writeSignificant = (text: AsciiText, value: number, digits: number)
   const magnitude = Math.abs(value);
   if (magnitude >= SMALLEST_PLAIN && magnitude < LARGEST_MANTISSA && digits >= 1 && digits <= MAX_EXACT_DIGITS) {
     // log10 may miss by one next to a power of ten; the mantissa's digit count settles it.
-    let exponent = Math.floor(Math.log10(magnitude));
+    let exponent = 0;
+    if (magnitude >= 1) while (exponent < 14 && magnitude >= POWERS[exponent + 1]) exponent++;
+    else while (exponent > -6 && magnitude * POWERS[-exponent] < 1) exponent--;
     let mantissa = roundedMantissa(magnitude, exponent, digits);
     if (mantissa >= POWERS[digits]) mantissa = roundedMantissa(magnitude, ++exponent, digits);
     else if (mantissa >= 0 && mantissa < POWERS[digits - 1]) mantissa = roundedMantissa(magnitude, --exponent, digits);

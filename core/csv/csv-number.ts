@@ -1,3 +1,5 @@
+import { plainDecimal } from "../plain-decimal.js";
+
 /** Cell spellings that mean "no value" (compared case-insensitively after trimming). Common practice. */
 export const CSV_MISSING_SPELLINGS: readonly string[] = ["", "na", "nan", "null", "-"];
 
@@ -11,6 +13,8 @@ const INFINITY = /^[+-]?Infinity$/;
  * `String()` gives it, so that whatever the writer writes reads back. `undefined` for anything else.
  */
 export const readCsvNumber = (cell: string): number | undefined => {
+  const plain = plainDecimal(cell);
+  if (plain === plain) return plain;
   const text = cell.trim();
   if (DECIMAL.test(text) || INFINITY.test(text)) return Number(text);
   return MISSING.has(text.toLowerCase()) ? NaN : undefined;

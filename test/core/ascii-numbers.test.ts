@@ -34,6 +34,13 @@ describe("writeShortest (ECMA-262 Number::toString)", () => {
       expect(written((text) => writeShortest(text, value))).toBe(String(value));
     }
   });
+
+  it("digits on either side of 2^31, where the integer digit writer hands over to String", () => {
+    for (const value of [2147483647, 2147483648, -2147483648, 214748.3647, 214748.3648, 21474836.49, 123456789012345, -0.00123456789012345, 999999999.9]) {
+      expect(written((text) => writeShortest(text, value))).toBe(String(value));
+      expect(written((text) => writeSignificant(text, value, 15))).toBe(String(Number(value.toPrecision(15))));
+    }
+  });
 });
 
 describe("writeColumnValue in the shortest form (ECMA-262 Number::toString), whichever writer fullDoublesOf picks", () => {
@@ -70,6 +77,18 @@ describe("writeSignificant (ECMA-262 Number.prototype.toPrecision, trailing zero
   it("ties round half up as toPrecision does, and 9.99… rounds up to the next power of ten", () => {
     for (const [value, digits] of [[0.125, 2], [2.5, 1], [99.99999999, 8], [9.999999999, 8], [999999.95, 7], [1e-6, 3], [23456789012.3, 8], [0.30000000000000004, 15]] as const) {
       expect(written((text) => writeSignificant(text, value, digits))).toBe(String(Number(value.toPrecision(digits))));
+    }
+  });
+  it("values at and next to every power of ten from 1e-6 to 1e15, where the first digit's place changes", () => {
+    const below = (x: number) => x - Math.abs(x) * Number.EPSILON;
+    const above = (x: number) => x + Math.abs(x) * Number.EPSILON;
+    for (let k = -6; k <= 15; k++) {
+      const power = Number(`1e${k}`);
+      for (const value of [below(below(power)), below(power), power, above(power), above(above(power)), -power, 9.999999999999999 * power]) {
+        for (let digits = 1; digits <= 15; digits++) {
+          expect(written((text) => writeSignificant(text, value, digits)), `${value} to ${digits} digits`).toBe(String(Number(value.toPrecision(digits))));
+        }
+      }
     }
   });
 });
