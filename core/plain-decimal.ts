@@ -8,16 +8,15 @@ const EXACT_INTEGERS = 9007199254740992;
  * one point, no exponent. Read as the integer of its digits divided by a power of ten, both exact doubles, so the
  * quotient is correctly rounded (IEEE 754 division) and equals `Number(text)` (Clinger, 1990, "How to read floating
  * point numbers accurately", the fast path). NaN when the token is anything else or needs more than that: the
- * caller then reads it the slow way.
+ * caller then reads it the slow way. Reads `text` from `start` to `end`, so that a line's tokens need not be cut out.
  */
-export const plainDecimal = (text: string): number => {
-  const end = text.length;
-  let i = 0;
+export const plainDecimal = (text: string, start = 0, end = text.length): number => {
+  let i = start;
   let negative = false;
-  const first = text.charCodeAt(0);
+  const first = text.charCodeAt(start);
   if (first === 45 || first === 43) {
     negative = first === 45;
-    i = 1;
+    i = start + 1;
   }
   let mantissa = 0;
   let digits = 0;

@@ -1,5 +1,6 @@
 import { WellFileError } from "../well-file-error.js";
 import { GrowableColumn } from "../growable-column.js";
+import { plainDecimal } from "../plain-decimal.js";
 import { parseLasNumber } from "./las-number.js";
 
 export interface LasDataReader {
@@ -55,14 +56,18 @@ export const createLasDataReader = (options: LasDataReaderOptions): LasDataReade
       if (i === text.length) break;
       const start = i;
       while (i < text.length && text.charCodeAt(i) > 32) i++;
-      const token = text.slice(start, i);
-      let value = parseLasNumber(token);
-      if (value === undefined && NOT_A_NUMBER.test(token)) {
-        if (nans.count++ === 0) nans.line = lineNumber;
-        value = NaN;
-      }
-      if (value === undefined) {
-        throw new WellFileError("las_invalid_number", `${JSON.stringify(token)} in ~A is not a number`, lineNumber);
+      // Most tokens are plain decimals, read where they stand; the others are cut out and read in full.
+      let value: number | undefined = plainDecimal(text, start, i);
+      if (value !== value) {
+        const token = text.slice(start, i);
+        value = parseLasNumber(token);
+        if (value === undefined && NOT_A_NUMBER.test(token)) {
+          if (nans.count++ === 0) nans.line = lineNumber;
+          value = NaN;
+        }
+        if (value === undefined) {
+          throw new WellFileError("las_invalid_number", `${JSON.stringify(token)} in ~A is not a number`, lineNumber);
+        }
       }
       if (count === lineValues.length) {
         const larger = new Float64Array(count * 2);

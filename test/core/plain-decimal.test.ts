@@ -47,6 +47,15 @@ describe("plainDecimal (Clinger's fast path: exact integer over exact power of t
     expect(plainDecimal("7.")).toBe(7);
   });
 
+  it("reads a token where it stands in a line, from start to end", () => {
+    const line = " 2150.1524  -104.24 .5 1.2E+03";
+    expect(plainDecimal(line, 1, 10)).toBe(2150.1524);
+    expect(plainDecimal(line, 12, 19)).toBe(-104.24);
+    expect(plainDecimal(line, 20, 22)).toBe(0.5);
+    expect(plainDecimal(line, 23, 30)).toBeNaN();
+    expect(plainDecimal(line, 0, 10)).toBeNaN();
+  });
+
   it("hands over what it does not read: exponents, blanks, empty text, a lone sign or point, two points, too many digits", () => {
     for (const text of ["1.2E+03", " 12", "", "-", ".", "1.2.3", "123456789012345678", "0x1F", "Infinity"]) {
       expect(plainDecimal(text), text).toBeNaN();
