@@ -10,6 +10,7 @@ import {
   FLAGS,
   flagCodesOf,
   invalidatingMask,
+  lasAscii,
   lasCurveLayoutOf,
   lasCurveNames,
   lasIndexItems,
@@ -247,7 +248,8 @@ const lasOutput = (header: WellHeader, plan: ConversionPlan, computed: NumberFor
         ];
         // Input names made valid LAS mnemonics, unique, and never one of the computed curves' (the original kept in the description).
         const inputs = lasCurveNames(input.curves, computedNames(rows.derived));
-        const curves = [...inputs, ...outputs];
+        // What this service writes is ASCII, as LAS files are (CWLS LAS 2.0); the input's own text is kept as read.
+        const curves = [...inputs, ...outputs.map((curve) => ({ ...curve, description: lasAscii(curve.description ?? "") }))];
         const fills = [
           ["Vs", plan.computation.fillShear, "estimated_vs"],
           ["Bulk density", plan.computation.fillDensity, "estimated_rho"],
@@ -261,8 +263,8 @@ const lasOutput = (header: WellHeader, plan: ConversionPlan, computed: NumberFor
           curves,
           indexItems: header.format === "las" ? undefined : lasIndexItems({ ...curves[0], values: wholeIndex ?? columns[0] }, String(plan.nullValue)),
           nullValue: plan.nullValue,
-          parameters: optionItems(plan, (c) => inputs[input.position(c)].mnemonic),
-          otherLines: [...qcLegend(invalidatingMask(plan.computation.keepNegativePoisson)), ...caution, ...readingNotes(plan.warnings)],
+          parameters: optionItems(plan, (c) => inputs[input.position(c)].mnemonic).map((item) => ({ ...item, value: lasAscii(item.value ?? "") })),
+          otherLines: [...qcLegend(invalidatingMask(plan.computation.keepNegativePoisson)), ...caution, ...readingNotes(plan.warnings)].map(lasAscii),
         });
         text.utf8(writer.begin(columns));
       }

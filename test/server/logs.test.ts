@@ -146,6 +146,19 @@ describe("POST /v1/logs", () => {
     expect(written.table.columns[0]).toHaveLength(parseCsv(DEMO_CSV.toString("utf8")).table.columns[0].length);
   });
 
+  it("writes LAS in ASCII (CWLS LAS 2.0: \"files written in ASCII\"), with estimates, gap fills and their citations", async () => {
+    const query = "?format=las&correlations=static_e.lacy1997,ucs.mcnally1987,friction_angle.lal1999,brittleness.rickman2008,ucs.militzer1973&vs_from=vs.greenberg1992_limestone&rho_from=density.gardner1974";
+    for (const [file, type] of [[DEMO_LAS, "text/plain"], [DEMO_CSV, "text/csv"]] as const) {
+      const response = await upload(file, query, { "content-type": type });
+      expect(response.statusCode).toBe(200);
+      expect(response.rawPayload.every((byte) => byte < 0x80)).toBe(true);
+      // The spelled-out symbols: a middle dot, a minus sign, a squared Vp, an en dash and degrees, an umlaut.
+      expect(response.body).toContain("Vs = -0.05508*Vp^2 + 1.01677*Vp - 1.03049");
+      expect(response.body).toContain("0-90 deg");
+      expect(response.body).toContain("Beitrage");
+    }
+  });
+
   it("the answers of a file fed in 7-byte chunks equal those of the whole file (chunks split numbers and CRLF pairs)", async () => {
     const app = await build();
     for (const format of ["json", "csv", "las"]) {
