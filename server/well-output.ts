@@ -224,11 +224,12 @@ const lasOutput = (header: WellHeader, plan: ConversionPlan, computed: NumberFor
   const units = outputUnits(plan);
   const input = inputCurves(header, plan);
   let writer: LasTextWriter | undefined;
-  let wholeIndex: Float64Array | undefined;
+  let wholeFileIndexItems: LasItemToWrite[] | undefined;
   return {
     ...(header.format === "csv" && {
+      // STRT, STOP and STEP at once, so that the whole index column is garbage before the first batch is written.
       wholeFile(rows: number, curve: (c: number) => Float64Array) {
-        wholeIndex = input.index(rows, curve);
+        wholeFileIndexItems = lasIndexItems({ ...input.curves[0], values: input.index(rows, curve) }, String(plan.nullValue));
       },
     }),
     batch(rows, text) {
@@ -261,7 +262,7 @@ const lasOutput = (header: WellHeader, plan: ConversionPlan, computed: NumberFor
         writer = createLasTextWriter({
           header: header.format === "las" ? header.header.sections : undefined,
           curves,
-          indexItems: header.format === "las" ? undefined : lasIndexItems({ ...curves[0], values: wholeIndex ?? columns[0] }, String(plan.nullValue)),
+          indexItems: header.format === "las" ? undefined : (wholeFileIndexItems ?? lasIndexItems({ ...curves[0], values: columns[0] }, String(plan.nullValue))),
           nullValue: plan.nullValue,
           parameters: optionItems(plan, (c) => inputs[input.position(c)].mnemonic).map((item) => ({ ...item, value: lasAscii(item.value ?? "") })),
           otherLines: [...qcLegend(invalidatingMask(plan.computation.keepNegativePoisson)), ...caution, ...readingNotes(plan.warnings)].map(lasAscii),
