@@ -11,9 +11,10 @@ const README = readFileSync(new URL("../../README.md", import.meta.url), "utf8")
 const HOST = "http://127.0.0.1:8080";
 
 /** A `curl -s '<url>'` block followed by a ```json block holding one whole JSON object. */
-const printedAnswers = [...README.matchAll(/```sh\ncurl -s '([^']+)'\n```\n\n```json\n(\{[^\n]*\})\n```/g)]
-  .map(([, url, json]) => ({ url: url.slice(HOST.length), json }))
-  .filter(({ json }) => !json.includes("…"));
+const printed = [...README.matchAll(/```sh\ncurl -s '([^']+)'\n```\n\n```json\n(\{[^\n]*\})\n```/g)].map(([, url, json]) => ({ url: url.slice(HOST.length), json }));
+const printedAnswers = printed.filter(({ json }) => !json.includes("…"));
+/** Answers printed in part (`…` for what is left out): the numbers they do print. */
+const abridgedAnswers = printed.filter(({ json }) => json.includes("…"));
 
 describe("README examples", () => {
   it("finds at least one printed single-sample answer", () => {
@@ -25,6 +26,14 @@ describe("README examples", () => {
     const response = await app.inject({ method: "GET", url: example.url });
     expect(response.statusCode).toBe(200);
     expect(response.body).toBe(example.json);
+  });
+
+  it.each(abridgedAnswers.map((example) => [example.url, example] as const))("GET %s answers every number the README prints of it", async (_url, example) => {
+    const app = await build();
+    const response = await app.inject({ method: "GET", url: example.url });
+    const numbers = [...example.json.matchAll(/"([a-z_A-Z]+)":(-?[0-9][0-9.e+-]*)/g)].map(([, key, value]) => `"${key}":${value}`);
+    expect(numbers.length).toBeGreaterThan(0);
+    for (const pair of numbers) expect(response.body).toContain(pair);
   });
 
   it("the Mpsi example quotes the E the service answers", async () => {
