@@ -15,6 +15,7 @@ export * from "./las/index.js";
 export * from "./csv/index.js";
 export * from "./unit-spellings.js";
 export * from "./curve-detection.js";
+export * from "./depth-order.js";
 export * from "./zone-statistics.js";
 export * from "./percentile.js";
 export * from "./correlations/index.js";

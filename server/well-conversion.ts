@@ -2,6 +2,7 @@ import {
   absentAsNaN,
   acceptedSpellings,
   computeElasticLog,
+  depthOrderNotes,
   detectCurves,
   InputIssues,
   normaliseUnit,
@@ -167,13 +168,18 @@ export const convertWell = (file: WellFile, options: ConversionOptions): WellCon
   const plan = planConversion({ ...file.table, warnings: [...file.notes, ...(file.format === "las" ? file.las.warnings : [])] }, options);
   const request = requestForRows(plan, file.table.columns);
   const depth = plan.curves.depth;
+  const depthColumn = depth && absentAsNaN(file.table.columns[depth.index], plan.nullValue);
+  // A LAS file's index is checked against STRT, STOP and STEP as it is read; a CSV file's depth only here.
+  if (file.format === "csv" && depth !== undefined && depthColumn !== undefined) {
+    plan.warnings.push(...depthOrderNotes(depthColumn).map((message) => ({ message: `curve ${depth.mnemonic}: ${message}` })));
+  }
   return {
     file,
     request,
     log: computeElasticLog(request),
     curves: plan.curves,
     // An absent depth (the null value) is NaN, as an absent value of the other curves is to the computation.
-    depth: depth && absentAsNaN(file.table.columns[depth.index], plan.nullValue),
+    depth: depthColumn,
     depthUnit: plan.depthUnit,
     nullValue: plan.nullValue,
     warnings: plan.warnings,

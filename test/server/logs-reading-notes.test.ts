@@ -63,3 +63,20 @@ describe("what reading the input noticed reaches a LAS answer, in ~Other, as it 
     expect(otherSection((await convert(clean, "las")).body).join("\n")).not.toContain("Notes from reading");
   });
 });
+
+describe("a CSV file's depth order (a CSV has no STEP; LAS files are checked against theirs as they are read)", () => {
+  it("the JSON answer's warnings name a repeated depth and a splice overlap, and keep every row", async () => {
+    const csv = ["DEPT[m],DTC[us/ft],DTS[us/ft],RHOB[g/cm3]", "1510.0,95,170,2.45", "1510.5,96,172,2.44", "1510.5,96,172,2.44", "1511.0,97,174,2.43", "1510.75,97,174,2.43", "1511.25,98,175,2.42", ""].join("\n");
+    const app = await build();
+    const response = await app.inject({ method: "POST", url: "/v1/logs", payload: csv, headers: { "content-type": "text/csv" } });
+    expect(response.statusCode).toBe(200);
+    const answer = response.json();
+    expect(answer.count).toBe(6);
+    expect(answer.warnings.map((warning: { message: string }) => warning.message)).toEqual(
+      expect.arrayContaining([
+        "curve DEPT: the depth repeats: data row 3 has the depth of data row 2 (1510.5)",
+        "curve DEPT: the depth turns back at data row 5: from 1511 to 1510.75, against the direction the column started in",
+      ]),
+    );
+  });
+});
