@@ -31,12 +31,16 @@ const VERSION_ITEMS: readonly LasItemToWrite[] = [
   { mnemonic: "WRAP", value: "NO", description: "ONE LINE PER DEPTH STEP" },
 ];
 
-/** Items every `~Well` must have (CWLS LAS 2.0, Appendix 1 Part 4, ~W), besides STRT, STOP, STEP and NULL. */
+/**
+ * Items every `~Well` must have (CWLS LAS 2.0, Appendix 1 Part 4, ~W), besides STRT, STOP, STEP and NULL; of the
+ * location items the standard asks for PROV, or CNTY, STAT and CTRY (from memory of its text): PROV is written, empty.
+ */
 const REQUIRED_WELL_ITEMS: readonly LasItemToWrite[] = [
   { mnemonic: "COMP", description: "COMPANY" },
   { mnemonic: "WELL", description: "WELL" },
   { mnemonic: "FLD", description: "FIELD" },
   { mnemonic: "LOC", description: "LOCATION" },
+  { mnemonic: "PROV", description: "PROVINCE" },
   { mnemonic: "SRVC", description: "SERVICE COMPANY" },
   { mnemonic: "DATE", description: "LOG DATE" },
   { mnemonic: "UWI", description: "UNIQUE WELL ID" },

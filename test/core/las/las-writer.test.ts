@@ -121,7 +121,7 @@ describe("writeLas for a new file", () => {
     const back = parseLas(text);
     expect(back.sections.map((section) => section.kind)).toEqual(["version", "well", "curve", "data"]);
     expect(back.well).toMatchObject({ startIndex: 1200, stopIndex: 1200.4572, step: 0.1524, nullValue: -999.25, indexUnit: "M", wellName: "KESTREL FLATS 3" });
-    for (const mnemonic of ["COMP", "FLD", "LOC", "SRVC", "DATE", "UWI"]) expect(findHeaderItem(back, "well", mnemonic)).toBeDefined();
+    for (const mnemonic of ["COMP", "FLD", "LOC", "PROV", "SRVC", "DATE", "UWI"]) expect(findHeaderItem(back, "well", mnemonic)).toBeDefined();
     expect(back.warnings).toEqual([]);
     expect(text.split("\r\n").find((line) => line.includes("STRT"))).toMatch(/^ STRT\.M +1200\.0000 +: START DEPTH$/);
   });
