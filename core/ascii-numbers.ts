@@ -5,14 +5,15 @@
  * on random doubles; the fast paths cover the values logs hold, anything else goes through the counterpart.
  */
 
+import { INT_POW10, POW10 } from "./exact-doubles.js";
 import { MAX_SHORTEST_BYTES, writeShortestDecimal } from "./shortest-decimal.js";
 
 /** Significant digits that every double carries through a decimal round trip (IEEE 754 binary64: 15, C's DBL_DIG). */
 export const MAX_EXACT_DIGITS = 15;
 
-const POWERS = Array.from({ length: 23 }, (_, k) => 10 ** k);
-/** 10^0 … 10^9, the powers of ten below 2^31, as 32-bit integers. */
-const SMALL_POWERS = Int32Array.from({ length: 10 }, (_, k) => 10 ** k);
+/** POW10 as a plain array: the writers below index it per digit, and read a plain array of doubles faster. */
+const POWERS = Array.from(POW10);
+
 /** Below this magnitude Number::toString writes an exponent (1e-7), and so do these writers. */
 const SMALLEST_PLAIN = 1e-6;
 /** Integers below this are exact doubles and are unique at 15 digits: m / 10^k reads back as one double only. */
@@ -120,7 +121,7 @@ export class AsciiText {
       k--;
     }
     let digits = 1;
-    while (digits < 10 && m >= SMALL_POWERS[digits]) digits++;
+    while (digits < 10 && m >= INT_POW10[digits]) digits++;
     const integerDigits = digits > k ? digits - k : 1;
     const size = (negative ? 1 : 0) + integerDigits + (k > 0 ? 1 + k : 0);
     this.ensure(size);

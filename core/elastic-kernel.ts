@@ -1,4 +1,5 @@
 import type { PlausibilityLimits } from "./plausibility-limits.js";
+import { squareError, sumError } from "./exact-doubles.js";
 import { flagBit } from "./qc-flags.js";
 
 /**
@@ -22,8 +23,6 @@ export interface ElasticColumns {
   muRho: Float64Array;
 }
 
-/** 2^27 + 1: splits a double into two halves whose products are exact (Dekker, 1971, Numerische Mathematik 18). */
-const SPLITTER = 134217729;
 const VS_NOT_BELOW_VP = flagBit("vs_not_below_vp");
 const NEGATIVE_BULK = flagBit("negative_bulk_modulus");
 const BELOW_SQRT2 = flagBit("vp_vs_below_sqrt2");
@@ -32,12 +31,6 @@ const RHO_RANGE = flagBit("density_out_of_range");
 const VP_RANGE = flagBit("vp_out_of_range");
 const VS_RANGE = flagBit("vs_out_of_range");
 const NOT_FINITE = flagBit("not_finite");
-
-/** The rounding error of `sum = x + y`, exactly (Knuth's two-sum, The Art of Computer Programming vol. 2, §4.2.2). */
-const sumError = (x: number, y: number, sum: number): number => {
-  const back = sum - x;
-  return x - (sum - back) + (y - back);
-};
 
 /**
  * x0 + x1 + x2 + x3 (and x4 + x5 below) as if summed in twice a double's precision and then rounded (Ogita, Rump &
@@ -125,14 +118,8 @@ export const computeElasticColumns = (
     // the differences below lose no digits where they cancel (Vp/Vs near √2 for ν and λ, near √(4/3) for K and E).
     const p2 = p * p;
     const s2 = s * s;
-    let split = SPLITTER * p;
-    const pHigh = split - (split - p);
-    const pLow = p - pHigh;
-    const p2Rest = pHigh * pHigh - p2 + 2 * pHigh * pLow + pLow * pLow;
-    split = SPLITTER * s;
-    const sHigh = split - (split - s);
-    const sLow = s - sHigh;
-    const s2Rest = sHigh * sHigh - s2 + 2 * sHigh * sLow + sLow * sLow;
+    const p2Rest = squareError(p, p2);
+    const s2Rest = squareError(s, s2);
     // a = p² − 2s² (sign of ν and λ), b = p² − s², c = 3p² − 4s² (sign of K and E), each summed from exact terms:
     // 3p² = 2p² + p² and 3·p2Rest = 2·p2Rest + p2Rest are each a sum and its exact rounding error.
     const a = compensatedSum4(p2, -2 * s2, p2Rest, -2 * s2Rest);

@@ -1,5 +1,5 @@
-/** Powers of ten exactly representable as doubles (10^0 … 10^22). */
-const EXACT_POWERS = Array.from({ length: 23 }, (_, k) => 10 ** k);
+import { POW10 } from "./exact-doubles.js";
+
 /** Integers below this are exact doubles: 2^53. */
 const EXACT_INTEGERS = 9007199254740992;
 
@@ -31,6 +31,6 @@ export const plainDecimal = (text: string, start = 0, end = text.length): number
     else return NaN;
   }
   if (digits === 0 || mantissa >= EXACT_INTEGERS || decimals > 22) return NaN;
-  const value = decimals > 0 ? mantissa / EXACT_POWERS[decimals] : mantissa;
+  const value = decimals > 0 ? mantissa / POW10[decimals] : mantissa;
   return negative ? -value : value;
 };

@@ -12,6 +12,8 @@
  * `String` instead, so the text is Number::toString's in every case.
  */
 
+import { INT_POW10, POW10, splitHigh } from "./exact-doubles.js";
+
 /**
  * Room to leave for one value: "-0.00000" and 17 digits are 25 bytes; String's longest, "-2.2250738585072014e-308", 24.
  * The writer may put digits past the end of its text, within this room.
@@ -22,16 +24,7 @@ const ZERO = 48;
 const DOT = 46;
 const MINUS = 45;
 
-/** 10^k for k = 0..22, every one an exact double. */
-const POW10 = Float64Array.from({ length: 23 }, (_, k) => 10 ** k);
-/** 10^k for k = 0..9 as small integers, for remainders in integer arithmetic. */
-const INT_POW10 = Int32Array.from({ length: 10 }, (_, k) => 10 ** k);
 /** Dekker's split of each 10^k into a high and a low half of 26 bits each. */
-const SPLITTER = 134217729; // 2^27 + 1
-const splitHigh = (a: number): number => {
-  const t = SPLITTER * a;
-  return t - (t - a);
-};
 const POW10_HIGH = POW10.map(splitHigh);
 const POW10_LOW = POW10.map((p, k) => p - POW10_HIGH[k]);
 /** 2^(b - 1076) for every biased exponent b: half a unit in the last place of a double with that exponent. */
