@@ -7,12 +7,12 @@ import type { CorrelationKind } from "./correlation.js";
  * rock); such a prediction is not a value but a sign that the correlation does not apply. Brittleness
  * indices are scaled percentages that a source may let run past 0–100 %, so they have no bound here.
  */
-export const PHYSICAL_DOMAIN: Readonly<Record<CorrelationKind, { min: number; max: number; text: string } | undefined>> = {
-  static_e: { min: 0, max: Infinity, text: "above 0 GPa" },
-  ucs: { min: 0, max: Infinity, text: "above 0 MPa" },
-  friction_angle: { min: 0, max: 90, text: "between 0° and 90°" },
-  vs: { min: 0, max: Infinity, text: "above 0 m/s" },
-  density: { min: 0, max: Infinity, text: "above 0 g/cm3" },
+export const PHYSICAL_DOMAIN: Readonly<Record<CorrelationKind, { min: number; max: number } | undefined>> = {
+  static_e: { min: 0, max: Infinity },
+  ucs: { min: 0, max: Infinity },
+  friction_angle: { min: 0, max: 90 },
+  vs: { min: 0, max: Infinity },
+  density: { min: 0, max: Infinity },
   brittleness: undefined,
 };
 
