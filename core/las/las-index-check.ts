@@ -1,3 +1,4 @@
+import { firstPlaceTally, readableNumber } from "../place-notes.js";
 import type { LasWarning } from "./las-document.js";
 
 /** A number read from a `~Well` item, with the line it is on. */
@@ -12,24 +13,6 @@ export interface LasIndexCheck {
   finish(): LasWarning[];
 }
 
-const readable = (value: number): string => String(Number(value.toPrecision(10)));
-
-/** Tracks the first place where a rule is broken and how many times it is. */
-const tally = () => {
-  let first: { line: number; message: string } | undefined;
-  let count = 0;
-  return {
-    add(line: number, message: () => string) {
-      if (count++ === 0) first = { line, message: message() };
-    },
-    warning(): LasWarning[] {
-      if (first === undefined) return [];
-      const more = count > 1 ? ` (and ${count - 1} more place${count > 2 ? "s" : ""})` : "";
-      return [{ line: first.line, message: first.message + more }];
-    },
-  };
-};
-
 /**
  * Compares the index (first curve) with STRT, STOP and STEP of `~Well` (CWLS LAS 2.0, Appendix 1
  * Part 4, ~W: STEP negative when STRT > STOP, zero for a variable step). Mismatches are warnings;
@@ -39,9 +22,9 @@ const tally = () => {
 export const createIndexCheck = (start: LasNumberItem, stop: LasNumberItem, step: LasNumberItem, nullValue?: number): LasIndexCheck => {
   const stepValue = step.value;
   const tolerance = Math.abs(stepValue ?? 0) * 1e-3 || 1e-6;
-  const stepMismatch = tally();
-  const directionChange = tally();
-  const absent = tally();
+  const stepMismatch = firstPlaceTally();
+  const directionChange = firstPlaceTally();
+  const absent = firstPlaceTally();
   let previous: number | undefined;
   let direction = 0;
   let first: { index: number; line: number } | undefined;
@@ -63,7 +46,7 @@ export const createIndexCheck = (start: LasNumberItem, stop: LasNumberItem, step
         if (Math.abs(change - stepValue) > tolerance) {
           stepMismatch.add(
             line,
-            () => `STEP says ${readable(stepValue)} but the index changes by ${readable(change)} (from ${readable(from)} to ${readable(index)})`,
+            () => `STEP says ${readableNumber(stepValue)} but the index changes by ${readableNumber(change)} (from ${readableNumber(from)} to ${readableNumber(index)})`,
           );
         }
       } else if (direction === 0) {
@@ -71,7 +54,7 @@ export const createIndexCheck = (start: LasNumberItem, stop: LasNumberItem, step
       } else if (Math.sign(change) !== direction) {
         directionChange.add(
           line,
-          () => `the index does not keep to one direction: it goes from ${readable(from)} to ${readable(index)}`,
+          () => `the index does not keep to one direction: it goes from ${readableNumber(from)} to ${readableNumber(index)}`,
         );
       }
     }
@@ -83,27 +66,27 @@ export const createIndexCheck = (start: LasNumberItem, stop: LasNumberItem, step
     if (first !== undefined && start.value !== undefined && Math.abs(first.index - start.value) > tolerance) {
       warnings.push({
         line: first.line,
-        message: `STRT says ${readable(start.value)} (line ${start.line}) but the first sample's index is ${readable(first.index)}`,
+        message: `STRT says ${readableNumber(start.value)} (line ${start.line}) but the first sample's index is ${readableNumber(first.index)}`,
       });
     }
     if (last !== undefined && stop.value !== undefined && Math.abs(last.index - stop.value) > tolerance) {
       warnings.push({
         line: last.line,
-        message: `STOP says ${readable(stop.value)} (line ${stop.line}) but the last sample's index is ${readable(last.index)}`,
+        message: `STOP says ${readableNumber(stop.value)} (line ${stop.line}) but the last sample's index is ${readableNumber(last.index)}`,
       });
     }
     if (start.value !== undefined && stop.value !== undefined && stepValue !== undefined && stepValue !== 0) {
       if (start.value !== stop.value && Math.sign(stop.value - start.value) !== Math.sign(stepValue)) {
         warnings.push({
           line: step.line,
-          message: `STEP ${readable(stepValue)} goes the wrong way from STRT ${readable(start.value)} to STOP ${readable(stop.value)}`,
+          message: `STEP ${readableNumber(stepValue)} goes the wrong way from STRT ${readableNumber(start.value)} to STOP ${readableNumber(stop.value)}`,
         });
       }
     }
     return warnings;
   };
 
-  const finish = (): LasWarning[] => [...headerWarnings(), ...absent.warning(), ...stepMismatch.warning(), ...directionChange.warning()];
+  const finish = (): LasWarning[] => [...headerWarnings(), ...absent.notes(), ...stepMismatch.notes(), ...directionChange.notes()];
 
   return { sample, finish };
 };

@@ -2,6 +2,7 @@ import type { CurveInfo } from "../well-table.js";
 import { isItemSection, type LasDocument, type LasSection } from "./las-document.js";
 import { writeLasHeader, type LasItemToWrite } from "./las-header-writer.js";
 import { AsciiText, asciiString, fullDoublesOf, writeColumnValue } from "../ascii-numbers.js";
+import { readableNumber } from "../place-notes.js";
 import { formatLasNumber, SHORTEST, type LasNumberFormat } from "./las-number-format.js";
 
 export interface LasCurveToWrite {
@@ -35,7 +36,6 @@ export const LAS_CHUNK_CHARACTERS = 64 * 1024;
 const LINE_END = "\r\n";
 const WIDTH_SAMPLE_ROWS = 256;
 
-const readable = (value: number): string => String(Number(value.toPrecision(10)));
 
 /** The curves of a document as read, ready to be written back unchanged (original mnemonics, shortest numbers). */
 export const lasCurvesOf = (document: LasDocument): LasCurveToWrite[] =>
@@ -69,7 +69,7 @@ export const lasIndexItems = (index: LasCurveToWrite, nullText: string): LasItem
   return [
     { mnemonic: "STRT", unit: index.unit, value: present ? format(first) : "0", description: "START DEPTH" },
     { mnemonic: "STOP", unit: index.unit, value: present ? format(last) : "0", description: "STOP DEPTH" },
-    { mnemonic: "STEP", unit: index.unit, value: readable(step), description: "STEP" },
+    { mnemonic: "STEP", unit: index.unit, value: readableNumber(step), description: "STEP" },
   ];
 };
 
