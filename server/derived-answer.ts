@@ -62,6 +62,16 @@ const base = (correlation: Correlation) => ({
 });
 
 /**
+ * The parts of a JSON answer that rest on empirical correlations: the gap-fill correlations (`gapFillAnswer`), the
+ * derived estimates, and the caution whenever either is there.
+ */
+export const empiricalParts = <Derived>(fills: ReturnType<typeof gapFillAnswer>, derived: Derived | undefined) => ({
+  ...(fills && { fill_correlations: fills }),
+  ...(derived !== undefined && { derived }),
+  ...((fills !== undefined || derived !== undefined) && { caution: CAUTION }),
+});
+
+/**
  * `fill_correlations`: the empirical correlations that predict Vs (vs_from) or density (rho_from), labelled as
  * derived estimates are, with which samples they fill; undefined when the request fills nothing.
  */

@@ -17,7 +17,7 @@ import {
   type SlownessUnit,
   type VelocityUnit,
 } from "../core/index.js";
-import { CAUTION, derivedColumnsAnswer, gapFillAnswer } from "./derived-answer.js";
+import { derivedColumnsAnswer, empiricalParts, gapFillAnswer } from "./derived-answer.js";
 import { OUTPUT_PROPERTIES, propertyColumns, type PropertyKey } from "./output-properties.js";
 import { fromPlausibilityLimits } from "./schemas/limits.js";
 
@@ -148,7 +148,6 @@ export const answerExtras = (
   derived: Map<string, DerivedColumn> | undefined,
 ) => ({
   ...(zones && depth && { zones: summariseZones(depth, zones, propertyColumns(log), log.flags, log.invalidMask) }),
-  ...((request.fillShear || request.fillDensity) && { filled: log.filled, fill_correlations: gapFillAnswer(request) }),
-  ...(derived && { derived: derivedColumnsAnswer(derived) }),
-  ...((derived || request.fillShear || request.fillDensity) && { caution: CAUTION }),
+  ...((request.fillShear || request.fillDensity) && { filled: log.filled }),
+  ...empiricalParts(gapFillAnswer(request), derived && derivedColumnsAnswer(derived)),
 });

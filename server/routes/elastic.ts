@@ -3,7 +3,7 @@ import type { FastifyInstance } from "fastify";
 import { z } from "zod";
 import { validatorCompiler, type ZodTypeProvider } from "fastify-type-provider-zod";
 import { computeElasticLog, summariseFlags } from "../../core/index.js";
-import { CAUTION, derivedPointAnswer, gapFillAnswer } from "../derived-answer.js";
+import { derivedPointAnswer, empiricalParts, gapFillAnswer } from "../derived-answer.js";
 import { deriveProperties } from "../derived-request.js";
 import { pointAnswer } from "../elastic-answer.js";
 import { pointRequest } from "../elastic-request.js";
@@ -70,13 +70,7 @@ export default async function elasticRoutes(instance: FastifyInstance, options: 
         modulus: query.modulus_unit,
         impedance: query.impedance_unit,
       });
-      const fills = gapFillAnswer(core);
-      return {
-        ...answer,
-        ...(fills && { fill_correlations: fills }),
-        ...(derived && { derived: derivedPointAnswer(derived) }),
-        ...((derived || fills) && { caution: CAUTION }),
-      };
+      return { ...answer, ...empiricalParts(gapFillAnswer(core), derived && derivedPointAnswer(derived)) };
     },
   );
 
