@@ -91,3 +91,19 @@ export const cpuMilliseconds = (pid: number): number => {
   const fields = stat.slice(stat.lastIndexOf(")") + 2).split(" ");
   return ((Number(fields[11]) + Number(fields[12])) * 1000) / TICKS_PER_SECOND;
 };
+
+/**
+ * What writing fresh memory costs on this machine beside memory already written: 256 MiB allocated and filled
+ * twice, in ms per MiB. Where the first pass costs many times the second (page faults; on a virtual machine,
+ * pages its host takes back when freed), answers of hundreds of MB pay for it at both ends of the connection.
+ */
+export const firstTouchCost = (): { firstMsPerMiB: number; againMsPerMiB: number } => {
+  const mebibytes = 256;
+  const t0 = performance.now();
+  const buffer = Buffer.allocUnsafeSlow(mebibytes * 2 ** 20);
+  buffer.fill(1);
+  const t1 = performance.now();
+  buffer.fill(2);
+  const t2 = performance.now();
+  return { firstMsPerMiB: (t1 - t0) / mebibytes, againMsPerMiB: (t2 - t1) / mebibytes };
+};

@@ -12,7 +12,7 @@ import { request } from "undici";
 import { arrowCase } from "./arrow-case.js";
 import { fileCases, memoryCase } from "./file-cases.js";
 import { kernelCase } from "./kernel-case.js";
-import { collectGarbage, cpuMilliseconds, freePort, root, settle, start, stop } from "./processes.js";
+import { collectGarbage, cpuMilliseconds, firstTouchCost, freePort, root, settle, start, stop } from "./processes.js";
 import { attempt, markdownTable, median, milliseconds, yesOrNo, type Row } from "./report.js";
 import { syntheticWell, type SyntheticWell } from "./synthetic-well.js";
 
@@ -30,6 +30,43 @@ const jsonBody = (well: SyntheticWell): string =>
     rho: Array.from(well.rhobGramsPerCubicCentimetre),
   });
 
+/**
+ * One JSON POST read to its end as undici's body.text() does, in two steps timed apart: the answer's bytes
+ * arrive, then become text. Times in ms from the request's start.
+ */
+const exchange = async (url: string, body: string) => {
+  collectGarbage();
+  const t0 = performance.now();
+  const response = await request(url, { method: "POST", headers: { "content-type": "application/json" }, body });
+  const chunks: Buffer[] = [];
+  for await (const chunk of response.body) chunks.push(chunk);
+  const lastByte = performance.now();
+  const text = Buffer.concat(chunks).toString("utf8");
+  const end = performance.now();
+  return { status: response.statusCode, text, totalMs: end - t0, decodeMs: end - lastByte };
+};
+
+/**
+ * The same exchange with a bare Node server that reads the body and streams back as many bytes with no work at
+ * all (bench/bare-stream.mjs): what moving these bytes and decoding them costs on this machine, whatever the server.
+ */
+const bareExchange = async (body: string, answerBytes: number, runs: number) => {
+  const port = await freePort();
+  const bare = await start("bare-stream", ["bench/bare-stream.mjs"], { PORT: String(port), ANSWER_BYTES: String(answerBytes) }, /ready/);
+  try {
+    const totals: number[] = [];
+    const decodes: number[] = [];
+    for (let run = 0; run < runs; run++) {
+      const { totalMs, decodeMs } = await exchange(`http://127.0.0.1:${port}/v1/elastic`, body);
+      totals.push(totalMs);
+      decodes.push(decodeMs);
+    }
+    return { totalMs: median(totals), decodeMs: median(decodes) };
+  } finally {
+    await stop(bare);
+  }
+};
+
 /** JSON POST beside its floor; also gives the median end-to-end time for the Arrow comparison. */
 const jsonCase = async (base: string, well: SyntheticWell, runs: number): Promise<{ row: Row; endToEndMs: number }> => {
   const samples = well.depthMetres.length;
@@ -42,20 +79,14 @@ const jsonCase = async (base: string, well: SyntheticWell, runs: number): Promis
   let text = "";
   for (let run = 0; run < runs; run++) {
     await settle(base);
-    collectGarbage();
-    const t0 = performance.now();
-    const response = await request(`${base}/v1/elastic`, { method: "POST", headers: { "content-type": "application/json" }, body });
-    // What undici's body.text() does, in two steps timed apart: the answer's bytes arrive, then become text.
-    const chunks: Buffer[] = [];
-    for await (const chunk of response.body) chunks.push(chunk);
-    const lastByte = performance.now();
-    const received = Buffer.concat(chunks).toString("utf8");
-    times.push(performance.now() - t0);
-    decodes.push(performance.now() - lastByte);
-    if (response.statusCode !== 200) throw new Error(`POST ${samples} samples answered ${response.statusCode}: ${received.slice(0, 300)}`);
+    const received = await exchange(`${base}/v1/elastic`, body);
+    times.push(received.totalMs);
+    decodes.push(received.decodeMs);
+    if (received.status !== 200) throw new Error(`POST ${samples} samples answered ${received.status}: ${received.text.slice(0, 300)}`);
     // Only the last answer is kept, for the floor: each earlier one is garbage before the next request.
-    if (run === runs - 1) text = received;
+    if (run === runs - 1) text = received.text;
   }
+  const answerBytes = Buffer.byteLength(text);
   const answer = JSON.parse(text);
   text = "";
   for (let run = 0; run < runs; run++) {
@@ -67,10 +98,16 @@ const jsonCase = async (base: string, well: SyntheticWell, runs: number): Promis
   }
   const ratio = median(times) / median(floors);
   const targeted = samples === 1_000_000;
+  // Only where the target is: the bare server's exchange is context for reading the ratio, not part of it.
+  const transport = targeted ? await bareExchange(body, answerBytes, runs) : undefined;
   const row = {
     case: `JSON POST /v1/elastic, ${samples.toLocaleString("en")} samples (median of ${runs})`,
     measured: `${milliseconds(median(times))} (of which the client's decoding of the answer's bytes to text: ${milliseconds(median(decodes))})`,
-    floor: `${milliseconds(median(floors))} (JSON.parse request + JSON.stringify answer)`,
+    floor:
+      `${milliseconds(median(floors))} (JSON.parse request + JSON.stringify answer)` +
+      (transport === undefined
+        ? ""
+        : `; the same bytes in and out through a bare Node server with no work (bench/bare-stream.mjs), same client: ${milliseconds(transport.totalMs)}, of which decoding ${milliseconds(transport.decodeMs)}`),
     ratio: `${ratio.toFixed(2)}×`,
     target: targeted ? `≤ ${JSON_TARGET_AT_1M}× floor` : "—",
     met: targeted ? yesOrNo(ratio <= JSON_TARGET_AT_1M) : "—",
@@ -172,6 +209,7 @@ const measureAll = async (folder: string): Promise<Row[]> => {
 const main = async () => {
   const began = performance.now();
   const loadBefore = loadavg()[0];
+  const touch = firstTouchCost();
   const build = spawnSync("npx", ["tsc", "-p", "tsconfig.build.json"], { cwd: root, stdio: "inherit", timeout: 300_000 });
   // tsc writes its output despite type errors; the run goes on and the page says so.
   const buildNote = build.status === 0 ? "" : ` The build (tsc) reported errors (exit ${build.status}); the output it wrote anyway was measured.`;
@@ -189,6 +227,7 @@ const main = async () => {
     "",
     `Written by \`npm run bench\` on ${new Date().toISOString().slice(0, 10)}: Node ${process.version}, ${cpus().length} × ${cpus()[0]?.model ?? "unknown CPU"}, ${Math.round(totalmem() / 2 ** 30)} GiB; load average ${loadBefore.toFixed(2)} at the start, the whole run took ${minutes.toFixed(1)} min.${buildNote}`,
     "The service runs in its own process (compiled output, as in production) on 127.0.0.1; the floors are measured in the benchmark's process in the same run.",
+    `Fresh memory on this machine at the start: writing 256 MiB never written before took ${touch.firstMsPerMiB.toFixed(2)} ms/MiB, writing it again ${touch.againMsPerMiB.toFixed(3)} ms/MiB (page faults; the large JSON answers pay for them in the client, which collects the answer and makes it text, and in the floor's JSON.stringify).`,
     "Before each timed request the benchmark waits until the service takes work again: after a whole-well request its load shedding (event-loop delay above MAX_EVENT_LOOP_DELAY_MS) refuses new requests for a second or two.",
     "Data: Marram Bank 7, a seeded synthetic well of our own (bench/synthetic-well.ts) with the defects real logs carry (gaps, null values, mispicked shear).",
     "",
