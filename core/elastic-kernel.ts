@@ -31,6 +31,15 @@ const RHO_RANGE = flagBit("density_out_of_range");
 const VP_RANGE = flagBit("vp_out_of_range");
 const VS_RANGE = flagBit("vs_out_of_range");
 const NOT_FINITE = flagBit("not_finite");
+const RHO_IMPOSSIBLE = flagBit("density_impossible");
+
+/**
+ * Bulk densities no rock can have, in kg/m3, whatever the plausibility limits a request sets: above osmium, the
+ * densest element (22.59 g/cm3 at room conditions; from memory of the CRC Handbook of Chemistry and Physics), and
+ * below a tenth of water, under the lightest rocks (pumice, about 0.25 g/cm3 and up; common practice). A density
+ * log in kg/m3 read as g/cm3 (2400 for 2.4) lands above, one in g/cm3 read as kg/m3 below.
+ */
+export const IMPOSSIBLE_DENSITY_KG_M3 = { below: 100, above: 22_600 } as const;
 
 /**
  * x0 + x1 + x2 + x3 (and x4 + x5 below) as if summed in twice a double's precision and then rounded (Ogita, Rump &
@@ -112,6 +121,8 @@ export const computeElasticColumns = (
     const d = rho[i];
     let mask = flags[i];
     if (outside(d, rhoMin, rhoMax)) mask |= RHO_RANGE;
+    // Above zero: a density at or below it is non_positive already.
+    if (d > 0 && outside(d, IMPOSSIBLE_DENSITY_KG_M3.below, IMPOSSIBLE_DENSITY_KG_M3.above)) mask |= RHO_IMPOSSIBLE;
     if (outside(p, vpMinMetresPerSecond, vpMaxMetresPerSecond)) mask |= VP_RANGE;
     if (outside(s, vsMinMetresPerSecond, vsMaxMetresPerSecond)) mask |= VS_RANGE;
     // p² and s² exactly, each as a double and the rest it rounded off (Dekker's product, no FMA in JavaScript):
@@ -139,7 +150,7 @@ export const computeElasticColumns = (
     const lambda = d * a;
     const e = (g * c) / b;
     const nu = a / (2 * b);
-    // Finite inputs beyond a double's range (rho 1e300 g/cm3 overflows ρVs²; Vp and Vs of 1e-200 m/s underflow
+    // Finite inputs beyond a double's range (Vp of 1e160 m/s overflows Vp²; Vp and Vs of 1e-200 m/s underflow
     // to 0/0) would give infinite or NaN properties. With Vs < Vp, |λ|, |K| and G are below M, |λρ| and μρ below
     // Mρ, and ρVs below ρVp: E, ν, Vp/Vs, Mρ and ρVp finite means every property is (NaN fails each `<`).
     if ((mask & invalidMask) === 0 && !Number.isNaN(ratio + d) && !(Math.abs(e) < Infinity && Math.abs(nu) < Infinity && ratio < Infinity && m * d < Infinity && d * p < Infinity)) {

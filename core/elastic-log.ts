@@ -63,7 +63,7 @@ export interface ElasticLog {
   /** Vp and Vs as used (measured or filled), in the velocity unit (NaN where absent or unusable). */
   vp: Float64Array;
   vs: Float64Array;
-  /** Bulk density as used (measured or filled), in g/cm3 whatever the input's unit (NaN where absent or unusable). */
+  /** Bulk density as used (measured or filled), in the density input's unit (NaN where absent or unusable). */
   rho: Float64Array;
   /** One bit mask per sample (see qc-flags). */
   flags: Uint32Array;
@@ -163,7 +163,7 @@ export const computeElasticLog = (request: ElasticLogRequest): ElasticLog => {
     muRho: columns.muRho,
     vp: divided(vp, velocity),
     vs: divided(vs, velocity),
-    rho: divided(rho, DENSITY_UNITS["g/cm3"]),
+    rho: divided(rho, DENSITY_UNITS[request.density.unit]),
     flags,
     invalidMask,
     filled,

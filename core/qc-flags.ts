@@ -24,6 +24,7 @@ export const FLAG_CODES = [
   "estimated_vs",
   "estimated_rho",
   "outside_calibration",
+  "density_impossible",
 ] as const;
 export type FlagCode = (typeof FLAG_CODES)[number];
 
@@ -31,7 +32,7 @@ const MEANINGS: Record<FlagCode, [Severity, string]> = {
   missing: ["invalid", "An input is absent, null, NaN or equal to the null value; nothing can be computed for this sample."],
   not_finite: [
     "invalid",
-    "An input is infinite (for example a number too large for a 64-bit float, such as 1e309), or so large or so small (a density of 1e300, a slowness of 1e-320) that a velocity or a computed property is beyond a 64-bit float.",
+    "An input is infinite (for example a number too large for a 64-bit float, such as 1e309), or so large or so small (a velocity of 1e160 m/s, a slowness of 1e-320) that a velocity or a computed property is beyond a 64-bit float.",
   ],
   non_positive: [
     "invalid",
@@ -72,6 +73,10 @@ const MEANINGS: Record<FlagCode, [Severity, string]> = {
   estimated_rho: [
     "suspect",
     "Bulk density was not measured here: it was predicted from Vp by the empirical correlation named in rho_from, and every value of this sample rests on that estimate.",
+  ],
+  density_impossible: [
+    "invalid",
+    "Bulk density above 22.6 g/cm3 or below 0.1 g/cm3: no rock has it (osmium, the densest element, is about 22.6 g/cm3; the lightest rocks, such as pumice, are above 0.2 g/cm3). Almost always a unit mistake: a log in kg/m3 read as g/cm3, or the reverse; give the density unit.",
   ],
   outside_calibration: [
     "suspect",

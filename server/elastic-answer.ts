@@ -48,7 +48,9 @@ const specifics = (code: FlagCode, log: ElasticLog, request: ElasticLogRequest):
     case "vs_out_of_range":
       return `Here Vs = ${format(vs)} ${unit}; the range is ${limits.vsMinMetresPerSecond}–${limits.vsMaxMetresPerSecond} m/s.`;
     case "density_out_of_range":
-      return `The range is ${limits.rhoMinGramsPerCubicCentimetre}–${limits.rhoMaxGramsPerCubicCentimetre} g/cm3.`;
+      return `Here rho = ${format(log.rho[0])} ${request.density.unit}; the range is ${limits.rhoMinGramsPerCubicCentimetre}–${limits.rhoMaxGramsPerCubicCentimetre} g/cm3.`;
+    case "density_impossible":
+      return `Here rho = ${format(log.rho[0])} ${request.density.unit}.`;
     default:
       return "";
   }

@@ -105,6 +105,9 @@ export const columnsRequest = (body: ElasticColumnsBody): ColumnsRequest => {
     base: column(body.base, "base"),
   };
   const length = requireEqualLengths(columns);
+  // The null value marks an absent depth as it marks an absent log value (as in a well file): NaN, echoed as null,
+  // in no zone.
+  for (const index of [columns.depth, columns.top, columns.base]) if (index !== undefined) absentWhereNull(index, body.null_value);
   if (columns.top !== undefined && columns.base !== undefined) requireTopsAboveBases(columns.top, columns.base);
   return {
     core: {
@@ -123,6 +126,11 @@ export const columnsRequest = (body: ElasticColumnsBody): ColumnsRequest => {
     top: columns.top,
     base: columns.base,
   };
+};
+
+/** Writes NaN over every value equal to `nullValue`, in place (the column is this request's own copy). */
+const absentWhereNull = (values: Float64Array, nullValue: number): void => {
+  for (let i = 0; i < values.length; i++) if (values[i] === nullValue) values[i] = Number.NaN;
 };
 
 /**

@@ -1,4 +1,5 @@
 import { jsonSchemaTransformObject } from "fastify-type-provider-zod";
+import { logsRequestBody } from "./schemas/logs.js";
 import { problemResponseComponents } from "./schemas/problem.js";
 
 type TransformObject = typeof jsonSchemaTransformObject;
@@ -20,7 +21,8 @@ const collectRefs = (value: unknown, found: Set<string>): void => {
  * The zod type provider writes every registered schema twice (an input and an output variant).
  * Keep only the component schemas the paths and responses actually reference, directly or through other
  * components, so the published document lists each schema once. Adds one problem response per status
- * (`components.responses`), so the document lists every problem type, even those no operation declares.
+ * (`components.responses`), so the document lists every problem type, even those no operation declares, and
+ * the request body of `POST /v1/logs`, which the route reads as a stream with no schema to describe it.
  */
 export const transformObject: TransformObject = (input) => {
   const document = jsonSchemaTransformObject(input) as Document & { components?: { schemas?: Record<string, unknown> } };
@@ -33,6 +35,8 @@ export const transformObject: TransformObject = (input) => {
     size = used.size;
     for (const name of [...used]) collectRefs(schemas[name], used);
   }
+  const logs = (document as { paths?: Record<string, { post?: Record<string, unknown> }> }).paths?.["/v1/logs"]?.post;
+  if (logs !== undefined) logs.requestBody = logsRequestBody;
   document.components = {
     ...document.components,
     schemas: Object.fromEntries(Object.entries(schemas).filter(([name]) => used.has(name))),

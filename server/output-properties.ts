@@ -1,7 +1,9 @@
-import type { ElasticLog, ImpedanceUnit, ModulusUnit, VelocityUnit } from "../core/index.js";
+import type { DensityUnit, ElasticLog, ImpedanceUnit, ModulusUnit, VelocityUnit } from "../core/index.js";
 
 export interface OutputUnits {
   velocity: VelocityUnit;
+  /** The density input's unit, which the answer's rho keeps. */
+  density: DensityUnit;
   modulus: ModulusUnit;
   impedance: ImpedanceUnit;
 }
@@ -35,7 +37,7 @@ export const OUTPUT_PROPERTIES = [
   { key: "mu_rho", curve: "EL_MURHO", description: "MU*RHO", unit: modulusDensity, column: (log) => log.muRho },
   { key: "vp", curve: "EL_VP", description: "COMPRESSIONAL VELOCITY USED", unit: (u) => u.velocity, column: (log) => log.vp },
   { key: "vs", curve: "EL_VS", description: "SHEAR VELOCITY USED", unit: (u) => u.velocity, column: (log) => log.vs },
-  { key: "rho", curve: "EL_RHO", description: "BULK DENSITY USED", unit: () => "g/cm3", column: (log) => log.rho },
+  { key: "rho", curve: "EL_RHO", description: "BULK DENSITY USED", unit: (u) => u.density, column: (log) => log.rho },
 ] as const satisfies readonly OutputProperty[];
 
 export type PropertyKey = (typeof OUTPUT_PROPERTIES)[number]["key"];

@@ -16,6 +16,7 @@ import {
   lasIndexItems,
   uniqueMnemonics,
   type DerivedColumn,
+  type DensityUnit,
   type ElasticLog,
   type LasCurveToWrite,
   type LasItemToWrite,
@@ -66,6 +67,8 @@ export type TextFormat = "csv" | "las" | "ndjson";
 
 const outputUnits = (plan: ConversionPlan): OutputUnits => ({
   velocity: plan.computation.velocityUnit,
+  // The density curve's unit, as core keeps it for rho (g/cm3 where every density is predicted by rho_from).
+  density: (plan.curves.rho?.unit as DensityUnit | undefined) ?? "g/cm3",
   modulus: plan.computation.modulusUnit,
   impedance: plan.computation.impedanceUnit,
 });

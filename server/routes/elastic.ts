@@ -106,7 +106,8 @@ export default async function elasticRoutes(instance: FastifyInstance, options: 
       validatorCompiler: ({ httpPart, schema }) => (httpPart === "body" ? (data: unknown) => ({ value: data }) : validatorCompiler({ schema } as never)),
     },
     async (request, reply) => {
-      const bytes = request.body as unknown as Buffer;
+      // A POST with no body at all never reaches the body parser: it is read as an empty body, and answered as one.
+      const bytes = (request.body as unknown as Buffer | null | undefined) ?? Buffer.alloc(0);
       const format = negotiateMediaType(request.headers.accept, [JSON_MEDIA_TYPE, ARROW_STREAM_MEDIA_TYPE]);
       if (format === undefined) {
         throw new ProblemError("not-acceptable", `Accept "${request.headers.accept}" names no format this endpoint writes: application/json or ${ARROW_STREAM_MEDIA_TYPE}.`);

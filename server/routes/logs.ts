@@ -3,6 +3,7 @@ import multipart from "@fastify/multipart";
 import { errorCodes, type FastifyInstance, type FastifyReply, type FastifyRequest } from "fastify";
 import type { ZodTypeProvider } from "fastify-type-provider-zod";
 import { z } from "zod";
+import { RAW_FILE_TYPES } from "../schemas/logs.js";
 import { checkZones, isInputIssues, type Zone } from "../../core/index.js";
 import { convertLogs, type ZoneWithList } from "../logs-task.js";
 import { sendAnswer } from "../answer-pool.js";
@@ -21,7 +22,6 @@ export interface LogsRouteOptions {
 }
 
 /** Content types curl and scripts send a raw file with; the body is read as a stream, whatever the label. */
-export const RAW_FILE_TYPES = ["text/plain", "text/csv", "application/octet-stream", "application/x-www-form-urlencoded", "application/x-las"];
 
 const MEDIA_TYPES = { json: "application/json", csv: "text/csv", las: "application/x-las", ndjson: "application/x-ndjson" } as const;
 const CONTENT_TYPES: Record<Exclude<Format, "json">, string> = {
@@ -204,6 +204,12 @@ const readMultipartParts = async (request: FastifyRequest, byteLimit: number): P
   return { chunks: file, zones };
 };
 
+/**
+ * The request's body as the content-type parser left it; a POST with no body at all (no Content-Length, no
+ * Transfer-Encoding) never reaches a parser, and is read as an empty file, which is answered as one.
+ */
+const bodyStream = (body: unknown): Readable => (body instanceof Readable ? body : Readable.from([]));
+
 /** The bytes of a body or file part, refusing more than `byteLimit` (413) without reading further. */
 const readBytes = async (stream: Readable, byteLimit: number): Promise<Buffer[]> => {
   const chunks: Buffer[] = [];
@@ -286,7 +292,7 @@ export default async function logsRoutes(instance: FastifyInstance, options: Log
       }
       if (format !== "json") {
         if (zones !== undefined) throw new ProblemError("invalid-request", ZONES_NEED_JSON, [{ field: "query.zones", message: `not available with format ${format}` }]);
-        const source = request.isMultipart() ? multipartFile(request, options.fileBodyLimitBytes) : (request.body as Readable);
+        const source = request.isMultipart() ? multipartFile(request, options.fileBodyLimitBytes) : bodyStream(request.body);
         const task = { query, format, maxSamples: options.maxSamples, byteLimit: options.fileBodyLimitBytes, encoding };
         const pieces = convertWellStream(source, task, (summary) => app.elasticMetrics.recordConversion(summary.count, summary.flags));
         return streamAnswer(request, reply, pieces, CONTENT_TYPES[format]);
@@ -302,7 +308,7 @@ export default async function logsRoutes(instance: FastifyInstance, options: Log
         }
         zones = upload.zones ?? zones;
       } else {
-        chunks = await readBytes(request.body as Readable, options.fileBodyLimitBytes);
+        chunks = await readBytes(bodyStream(request.body), options.fileBodyLimitBytes);
       }
       const task = { chunks, query, zones, maxSamples: options.maxSamples, encoding };
       const bytes = chunks.reduce((sum, chunk) => sum + chunk.length, 0);

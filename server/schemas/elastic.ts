@@ -92,7 +92,7 @@ export const elasticPointResponse = z
     mu_rho: propertyValue("mu*rho = G*rho, in the modulus unit times g/cm3."),
     vp: propertyValue("Compressional velocity used (from vp or dtc), in the velocity unit; null when unusable."),
     vs: propertyValue("Shear velocity used (from vs or dts), in the velocity unit; null when unusable."),
-    rho: propertyValue("Bulk density used (measured, or predicted by rho_from), in g/cm3 whatever the density unit of the input (as impedances and lambda*rho use); null when unusable."),
+    rho: propertyValue("Bulk density used (measured, or predicted by rho_from), in units.density (the unit the density was given in); null when unusable."),
     valid: z.boolean().meta({ description: "False when an invalid flag made the moduli null." }),
     flags: z.array(pointFlag),
     fill_correlations: fillCorrelations.optional(),
@@ -138,7 +138,7 @@ export const elasticColumnsBody = z
       })
       .prefault({})
       .meta({ description: "Units of the inputs and of the answer; each defaults as shown." }),
-    null_value: z.number().default(DEFAULT_NULL_VALUE).meta({ description: "A value equal to this is absent (flag missing). null inside arrays is absent too." }),
+    null_value: z.number().default(DEFAULT_NULL_VALUE).meta({ description: "A value equal to this, in any column (depth, top and base too), is absent: a log value is flagged missing, a depth is echoed as null and sits in no zone. null inside arrays is absent too." }),
     keep_negative_poisson: z.boolean().default(false).meta({ description: keepNegativePoisson.description }),
     limits: z.strictObject(bodyLimitFields).prefault({}).meta({ description: "Overrides of the plausibility ranges (see LimitsUsed)." }),
     correlations: correlationIds.optional(),
@@ -205,7 +205,7 @@ export const elasticColumnsResponse = z
     mu_rho: resultColumn("mu*rho."),
     vp: inputColumn("Compressional velocity used, in the velocity unit."),
     vs: inputColumn("Shear velocity used (measured, or predicted by vs_from), in the velocity unit."),
-    rho: inputColumn("Bulk density used (measured, or predicted by rho_from), in g/cm3 whatever the density unit of the input."),
+    rho: inputColumn("Bulk density used (measured, or predicted by rho_from), in units.density (the unit the density was given in)."),
     flags: z.array(sampleFlag).meta({ description: "Every flag raised, in row order." }),
     flag_legend: z
       .record(z.string(), z.object({ severity, meaning: z.string() }))
@@ -235,7 +235,7 @@ export const elasticArrowQuery = z.strictObject({
   modulus_unit: modulusUnit.optional(),
   depth_unit: depthUnit.optional(),
   impedance_unit: impedanceUnit.optional(),
-  null_value: queryNumber().optional().meta({ description: "A value equal to this is absent; default -999.25. Arrow nulls are absent too." }),
+  null_value: queryNumber().optional().meta({ description: "A value equal to this, in any column (depth, top and base too), is absent; default -999.25. Arrow nulls are absent too." }),
   keep_negative_poisson: z.stringbool().optional(),
   ...fillFields,
   ...limitFields,

@@ -6,6 +6,40 @@ import { limitFields } from "./limits.js";
 import { impedanceUnit, modulusUnit, velocityUnit, DEFAULT_UNITS } from "./units.js";
 import { zoneSummarySchema } from "./zones.js";
 
+/** Content types under which the body of `POST /v1/logs` is the well file itself. */
+export const RAW_FILE_TYPES = ["text/plain", "text/csv", "application/octet-stream", "application/x-www-form-urlencoded", "application/x-las"];
+
+const WELL_FILE = "The well file's bytes: LAS 2.0 (CWLS) or RFC 4180 CSV with a header row, UTF-8 unless charset= says otherwise.";
+
+/** One object for every raw content type, so that the YAML writes it once. */
+const RAW_FILE_CONTENT = { schema: { type: "string", format: "binary", description: WELL_FILE } } as const;
+
+/**
+ * The request body of `POST /v1/logs` for openapi.yaml. The route reads the body as a stream, so no schema
+ * validates it and the type provider cannot describe it: openapi-components.ts adds this to the operation.
+ */
+export const logsRequestBody = {
+  required: true,
+  description: `A LAS 2.0 or CSV file, sent as the body itself (${RAW_FILE_TYPES.join(", ")}; or no Content-Type at all), or as the file part of a multipart/form-data upload with an optional zones part.`,
+  content: {
+    ...Object.fromEntries(RAW_FILE_TYPES.map((type) => [type, RAW_FILE_CONTENT])),
+    "multipart/form-data": {
+      schema: {
+        type: "object",
+        required: ["file"],
+        additionalProperties: false,
+        properties: {
+          file: { type: "string", format: "binary", description: `${WELL_FILE} Sent with a filename (curl -F file=@well.las).` },
+          zones: {
+            type: "string",
+            description: "Optional: the zones as a JSON array of {name, top, base} (depths in the well's depth unit), as a field or a file (curl -F zones=@zones.json); not together with the zones query parameter.",
+          },
+        },
+      },
+    },
+  },
+} as const;
+
 const curveName = (role: string) =>
   z.string().min(1).max(100).optional().meta({ description: `Name of the curve (LAS mnemonic or CSV column) to use as ${role}; detected from mnemonics and units when absent.` });
 const unitSpelling = (role: string, example: string) =>

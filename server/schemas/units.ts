@@ -42,12 +42,12 @@ export const unitsUsed = z
   .object({
     velocity: velocityUnit.meta({ description: "Unit of vp and vs in the answer (and of velocities given in the request)." }),
     slowness: slownessUnit.meta({ description: "Unit slownesses (DTC, DTS) were read in; the answer holds none." }),
-    density: densityUnit.meta({ description: "Unit the density input was read in. The answer's rho is in g/cm3 whatever this unit, as impedances and lambda_rho use." }),
+    density: densityUnit.meta({ description: "Unit of rho in the answer, which is the unit the density input was read in. Impedances and lambda_rho have units of their own (impedance, lambda_rho)." }),
     modulus: modulusUnit.meta({ description: "Unit of E, G, K, lambda and M in the answer." }),
     impedance: impedanceUnit.meta({ description: "Unit of p_impedance and s_impedance in the answer." }),
     lambda_rho: z.string().meta({ description: "Unit of lambda_rho and mu_rho: the modulus unit times g/cm3." }),
   })
   .meta({
     id: "UnitsUsed",
-    description: "Units of the request's inputs as read and of the answer's numbers: vp and vs are in velocity, rho always in g/cm3, the moduli in modulus, the impedances in impedance, lambda_rho and mu_rho in lambda_rho, Poisson's ratio and vp_vs have none. Empirical estimates carry their own unit.",
+    description: "Units of the request's inputs as read and of the answer's numbers: vp and vs are in velocity, rho in density, the moduli in modulus, the impedances in impedance, lambda_rho and mu_rho in lambda_rho, Poisson's ratio and vp_vs have none. Empirical estimates carry their own unit.",
   });

@@ -25,21 +25,37 @@ describe("QC flag thresholds, at and just either side", () => {
   });
 
   it("not_finite: finite inputs whose velocity or properties overflow a double are invalid, with null properties", () => {
-    // ρ = 1e300 g/cm3 is 1e303 kg/m3, finite; G = ρVs² is not (Number.MAX_VALUE ≈ 1.8e308, IEEE 754 binary64).
-    const dense = elasticOf([3000], [1500], [1e300]);
-    expect(flagCodesOf(dense.flags[0])).toEqual(["not_finite", "density_out_of_range"]);
-    expect(dense.flags[0] & dense.invalidMask).not.toBe(0);
-    expect([dense.youngsModulus[0], dense.shearModulus[0], dense.muRho[0], dense.pImpedance[0]].every(Number.isNaN)).toBe(true);
+    // Vp = 1e160 m/s is finite; Vp² is not (Number.MAX_VALUE ≈ 1.8e308, IEEE 754 binary64).
+    const fastest = elasticOf([1e160], [5e159], [2.4]);
+    expect(flagCodesOf(fastest.flags[0])).toEqual(["not_finite", "vp_out_of_range", "vs_out_of_range"]);
+    expect(fastest.flags[0] & fastest.invalidMask).not.toBe(0);
+    expect([fastest.youngsModulus[0], fastest.shearModulus[0], fastest.muRho[0], fastest.pImpedance[0]].every(Number.isNaN)).toBe(true);
     // A slowness of 1e-320 µs/ft (subnormal) is a velocity of 3e325 m/s, beyond a double: not "Vs not below Vp".
     const fast = elasticOf([3000], [1e-320], [2.4], { shear: { measure: "slowness", unit: "us/ft", values: Float64Array.of(1e-320) } });
     expect(flagCodesOf(fast.flags[0])).toEqual(["not_finite"]);
-    // A density absurd but within range of every product (Mρ = ρ²Vp² stays below 1.8e308) is only out of range.
-    expect(codes(3000, 1500, 1e140)).toEqual(["density_out_of_range"]);
-    expect(codes(3000, 1500, 1e160)).toEqual(["not_finite", "density_out_of_range"]);
+    // A velocity absurd but within range of every product and of E's intermediate ρVs²·(3Vp² − 4Vs²) is only out of range.
+    expect(codes(1e70, 5e69, 2.4)).toEqual(["vp_out_of_range", "vs_out_of_range"]);
   });
 
-  it("not_finite is never added to a sample already invalid for another reason (Vs = Vp divides E by zero)", () => {
-    expect(codes(2000, 2000, 1e300)).toEqual(["vs_not_below_vp", "density_out_of_range"]);
+  it("not_finite is never added to a sample already invalid for another reason (Vs = Vp divides E by zero; a density no rock has)", () => {
+    expect(codes(1e160, 1e160, 2.4)).toEqual(["vs_not_below_vp", "vp_out_of_range", "vs_out_of_range"]);
+    // ρ = 1e300 g/cm3 overflows ρVs², but is density_impossible first.
+    expect(codes(3000, 1500, 1e300)).toEqual(["density_out_of_range", "density_impossible"]);
+  });
+
+  it("density_impossible: above 22.6 g/cm3 (osmium, the densest element, 22.59 g/cm3; from memory of the CRC Handbook) or below 0.1 g/cm3 (under pumice, the lightest rock; common practice), whatever the plausibility limits", () => {
+    expect(codes(3000, 1500, 22.6)).toEqual(["density_out_of_range"]);
+    expect(codes(3000, 1500, next(22.6))).toEqual(["density_out_of_range", "density_impossible"]);
+    expect(codes(3000, 1500, 0.1)).toEqual(["density_out_of_range"]);
+    expect(codes(3000, 1500, previous(0.1))).toEqual(["density_out_of_range", "density_impossible"]);
+    // The usual mistake: a log in kg/m3 read as g/cm3, and the reverse. Its moduli are null, so no zone statistic takes them.
+    const misread = elasticOf([3000], [1500], [2400]);
+    expect(flagCodesOf(misread.flags[0])).toEqual(["density_out_of_range", "density_impossible"]);
+    expect(Number.isNaN(misread.youngsModulus[0])).toBe(true);
+    expect(codes(3000, 1500, 0.0024)).toEqual(["density_out_of_range", "density_impossible"]);
+    // Wider plausibility limits do not make it possible; a density at or below zero is non_positive alone.
+    expect(codes(3000, 1500, 30, { limits: { rhoMaxGramsPerCubicCentimetre: 40 } })).toEqual(["density_impossible"]);
+    expect(codes(3000, 1500, -2.4)).toEqual(["non_positive"]);
   });
 
   it("property: every sample that is not invalid has every property finite, whatever its positive finite inputs", () => {

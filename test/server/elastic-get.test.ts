@@ -61,6 +61,16 @@ describe("GET /v1/elastic", () => {
     expect(kept.flags[0]).toMatchObject({ code: "vp_vs_below_sqrt2", severity: "suspect" });
   });
 
+  it("a density log in kg/m3 sent as g/cm3 (2400 for 2.4) is density_impossible: invalid, moduli null, and the flag names the value and the likely unit mistake", async () => {
+    const { body } = await get("dtc=95&dts=170&rho=2400");
+    expect(body.valid).toBe(false);
+    expect(body.E).toBeNull();
+    const flag = body.flags.find((f: { code: string }) => f.code === "density_impossible");
+    expect(flag).toMatchObject({ severity: "invalid" });
+    expect(JSON.stringify(flag)).toContain("Here rho = 2400 g/cm3.");
+    expect(JSON.stringify(flag)).toContain("kg/m3 read as g/cm3");
+  });
+
   it("treats the null value as missing and lets the request change it and the plausibility limits", async () => {
     const missing = (await get("vp=3000&vs=-999.25&rho=2.4")).body;
     expect(missing.flags.map((f: { code: string }) => f.code)).toEqual(["missing"]);
@@ -135,11 +145,14 @@ describe("GET /v1/elastic", () => {
     expect(body.errors).toContainEqual({ field, message: words.includes("(") ? words : expect.stringContaining(words) });
   });
 
-  it("returns the bulk density used in g/cm3 whatever the input's unit (2450 kg/m3 is 2.45 g/cm3), as impedances and lambda*rho use it", async () => {
+  it("returns the bulk density used in the unit it was given in, which units.density names (2450 kg/m3 stays 2450)", async () => {
     const { body } = await get("dtc=95&dts=170&rho=2450&density_unit=kg/m3");
-    expect(body.rho).toBeCloseTo(2.45, 14);
+    expect(body.rho).toBe(2450);
+    expect(body.units.density).toBe("kg/m3");
     const same = await get("dtc=95&dts=170&rho=2.45");
     expect(same.body.rho).toBe(2.45);
+    expect(same.body.units.density).toBe("g/cm3");
+    // The same rock either way: 2450 kg/m3 is 2.45 g/cm3 (SI definition of the gram and the metre).
     expect(body.E).toBeCloseTo(same.body.E, 12);
   });
 });

@@ -112,5 +112,32 @@ describe("POST /v1/elastic", () => {
     expect(JSON.stringify(body.errors)).toContain("base 1501.5 is above top 1502");
     expect(body.errors).toHaveLength(1);
   });
-});
 
+  it("a depth equal to the null value is absent, as in a well file (LAS 2.0 ~W NULL): echoed as null and in no zone", async () => {
+    const { response, body } = await post({
+      depth: [1510, null, -999.25],
+      dtc: [95, 96, 97],
+      dts: [170, 172, 174],
+      rho: [2.45, 2.44, 2.43],
+      zones: [{ name: "Whole log", top: -2000, base: 3000 }],
+    });
+    expect(response.statusCode).toBe(200);
+    expect(body.depth).toEqual([1510, null, null]);
+    expect(body.zones[0].count).toBe(1);
+    const custom = await post({ depth: [1510, -1, 1511], dtc: [95, 96, 97], dts: [170, 172, 174], rho: [2.45, 2.44, 2.43], null_value: -1 });
+    expect(custom.body.depth).toEqual([1510, null, 1511]);
+  });
+
+  it("intervals whose top or base is the null value sit in no zone", async () => {
+    const { response, body } = await post({
+      top: [1510, -999.25],
+      base: [1511, 1512],
+      dtc: [95, 96],
+      dts: [170, 172],
+      rho: [2.45, 2.44],
+      zones: [{ name: "Whole log", top: -2000, base: 3000 }],
+    });
+    expect(response.statusCode).toBe(200);
+    expect(body.zones[0].count).toBe(1);
+  });
+});

@@ -6,6 +6,7 @@ import { FLAG_CODES } from "../../core/index.js";
 import { generateOpenApiYaml } from "../../server/openapi-document.js";
 import { PROBLEM_KINDS, problemTypeUri, type ProblemSlug } from "../../server/problems.js";
 import { build } from "../helpers/build.js";
+import { multipartBody } from "../helpers/multipart.js";
 
 const committed = readFileSync(new URL("../../openapi.yaml", import.meta.url), "utf8");
 
@@ -73,6 +74,25 @@ describe("openapi.yaml", () => {
     for (const operation of [document.paths["/v1/elastic"].get, document.paths["/v1/elastic"].post, document.paths["/v1/logs"].post]) {
       for (const status of ["400", "406", "413", "415"]) expect(operation.responses[status].content).toHaveProperty(["application/problem+json"]);
     }
+  });
+
+  it("documents the request body of POST /v1/logs under exactly the content types the route reads (OpenAPI 3.1 §4.8.13 Request Body Object)", async () => {
+    const document = parse(committed);
+    const body = document.paths["/v1/logs"].post.requestBody;
+    expect(body.required).toBe(true);
+    expect(body.content["multipart/form-data"].schema.required).toEqual(["file"]);
+    expect(Object.keys(body.content["multipart/form-data"].schema.properties).sort()).toEqual(["file", "zones"]);
+    const app = await build();
+    // Two rows of our own demo well (Marram Bank 7).
+    const csv = "DEPT[m],DTC[us/ft],DTS[us/ft],RHOB[g/cm3]\r\n1510.0,95,170,2.45\r\n1510.5,96,172,2.44\r\n";
+    for (const type of Object.keys(body.content)) {
+      const upload = type === "multipart/form-data" ? multipartBody([{ name: "file", filename: "marram-bank-7.csv", content: csv }]) : { body: csv, contentType: type };
+      const response = await app.inject({ method: "POST", url: "/v1/logs", payload: upload.body, headers: { "content-type": upload.contentType } });
+      expect(response.statusCode, type).toBe(200);
+      expect(response.json().count, type).toBe(2);
+    }
+    const undocumented = await app.inject({ method: "POST", url: "/v1/logs", payload: csv, headers: { "content-type": "application/pdf" } });
+    expect(undocumented.statusCode).toBe(415);
   });
 
   it("is served at /openapi.yaml and /openapi.json, and /docs renders an interactive reference", async () => {
