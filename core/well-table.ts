@@ -23,8 +23,8 @@ export interface WellTable {
 export const USUAL_NULL_VALUE = -999.25;
 
 /**
- * A column with its absent values (equal to `nullValue`, as input screening reads the other curves) as NaN, so a
- * depth column can be echoed and zoned like any absent value; the column itself when it holds none.
+ * A column with its absent values (equal to `nullValue`, as input screening reads them) as NaN, so that an input
+ * column (the depth too) is echoed and zoned like any absent value; the column itself when it holds none.
  */
 export const absentAsNaN = (column: Float64Array, nullValue: number): Float64Array => {
   const first = column.indexOf(nullValue);

@@ -1,6 +1,8 @@
 import { InputIssues, type InputIssue } from "./input-issues.js";
 import { requireEqualLengths } from "./numeric-column.js";
 import { percentileOfSorted } from "./percentile.js";
+import { readableNumber } from "./place-notes.js";
+import { DEPTH_UNITS, type DepthUnit } from "./units.js";
 
 export interface Zone {
   name: string;
@@ -138,5 +140,51 @@ export const summariseZones = (
     const summaries: Record<string, PropertyStatistics> = {};
     for (const [property, column] of namedProperties) summaries[property] = statistics(column, count, validMembers, scratch);
     return { name, top, base, count, valid, flagged_fraction: count === 0 ? null : flagged / count, properties: summaries };
+  });
+};
+
+/** The first and last finite depth in row order, and the shallowest and deepest; undefined for a column without one. */
+const depthExtent = (depth: Float64Array): { first: number; last: number; min: number; max: number } | undefined => {
+  let first = NaN;
+  let last = NaN;
+  let min = Infinity;
+  let max = -Infinity;
+  for (let i = 0; i < depth.length; i++) {
+    const d = depth[i];
+    if (!Number.isFinite(d)) continue;
+    if (Number.isNaN(first)) first = d;
+    last = d;
+    if (d < min) min = d;
+    if (d > max) max = d;
+  }
+  return Number.isNaN(first) ? undefined : { first, last, min, max };
+};
+
+/**
+ * Notes for a reader on the zones that hold no sample (`count` 0, as `summariseZones` counts them), which would
+ * otherwise show only null statistics: each names the zone, its top and base, and the log's first and last depth
+ * (in row order), and asks to check the depth unit of the zones. A zone wholly above or below the log is the usual
+ * mistake of tops in feet for a log in metres (or the reverse): where the zone read in the other depth unit would
+ * reach into the log, the note says so. A zone within the log's depths that still holds no sample lies between two
+ * samples or in a stretch of absent depths. Depths are in `unit`, the log's depth unit, the zones' too.
+ */
+export const emptyZoneNotes = (depth: Float64Array, zones: readonly (Zone & { count: number })[], unit: DepthUnit): string[] => {
+  const empty = zones.filter((zone) => zone.count === 0);
+  if (empty.length === 0) return [];
+  const extent = depthExtent(depth);
+  const at = (value: number) => `${readableNumber(value)} ${unit}`;
+  return empty.map(({ name, top, base }) => {
+    const zone = `zone ${JSON.stringify(name)} (top ${at(top)}, base ${at(base)}) holds no sample`;
+    if (extent === undefined) return `${zone}: the log has no depth value`;
+    const log = `the log, whose depths run from ${at(extent.first)} (first) to ${at(extent.last)} (last)`;
+    const outside = base <= extent.min ? "above" : top > extent.max ? "below" : undefined;
+    if (outside === undefined) {
+      return `${zone}: it reaches into ${log}, but no sample lies in it (it falls between two samples, or where depths are absent). Check the zone's top and base, and that they are in the log's depth unit (${unit})`;
+    }
+    const other = (Object.keys(DEPTH_UNITS) as DepthUnit[]).find((candidate) => candidate !== unit) as DepthUnit;
+    const factor = DEPTH_UNITS[other] / DEPTH_UNITS[unit];
+    const [otherTop, otherBase] = [top * factor, base * factor];
+    const inOther = otherTop <= extent.max && otherBase >= extent.min ? `; read in ${other}, the zone would run from ${at(otherTop)} to ${at(otherBase)}, which overlaps the log` : "";
+    return `${zone}: it lies entirely ${outside} ${log}. Check the depth unit of the zones: they are read in the log's depth unit (${unit})${inOther}`;
   });
 };

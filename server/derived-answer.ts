@@ -8,6 +8,7 @@ import {
   type GapFill,
 } from "../core/index.js";
 import { ProblemError } from "./problems.js";
+import { INPUT_QUANTITY_NAMES } from "./schemas/correlations.js";
 
 /** Shown with every answer that carries static or strength estimates, and in the README and /docs. */
 export const CAUTION =
@@ -113,7 +114,7 @@ export const correlationEntry = (correlation: Correlation) => {
     kind: d.kind,
     lithology: d.lithology,
     formula: d.formula,
-    inputs: d.inputs.map((input) => ({ quantity: input.quantity, symbol: input.symbol, unit: input.unit, calibration_range: input.range })),
+    inputs: d.inputs.map((input) => ({ quantity: INPUT_QUANTITY_NAMES[input.quantity], symbol: input.symbol, unit: input.unit, calibration_range: input.range })),
     options: d.options.map((option) => ({
       name: option.name,
       unit: option.unit,

@@ -1,5 +1,5 @@
 import secureJson from "secure-json-parse";
-import { duplicateNameIssues, InputIssues, readJsonColumns } from "../core/index.js";
+import { duplicateNameIssues, InputIssues, jsonSyntaxErrorAt, readJsonColumns } from "../core/index.js";
 import { ProblemError } from "./problems.js";
 
 /** Line and column (1-based) of a character offset, so a script author can find the mistake. */
@@ -40,8 +40,10 @@ export const parseJsonText = (text: string): unknown => {
     if (/forbidden prototype property/i.test(message)) throw new ProblemError("forbidden-key", FORBIDDEN_KEY);
     // NaN and Infinity are what Python's json.dumps and some other writers put for missing or huge values.
     const nonNumber = NON_NUMBER.exec(text);
-    const position = /position (\d+)/.exec(message)?.[1] ?? (nonNumber === null ? undefined : nonNumber.index + nonNumber[1].length);
-    const where = position === undefined ? "" : ` (at ${lineAndColumn(text, Number(position))})`;
+    // V8 gives the offset in some messages only ("Unexpected token ']', …" has none): the scanner finds it then.
+    const given = /position (\d+)/.exec(message)?.[1];
+    const position = given === undefined ? jsonSyntaxErrorAt(text) : Number(given);
+    const where = position === undefined ? "" : ` (at ${lineAndColumn(text, position)})`;
     const hint = nonNumber === null ? "" : ` ${nonNumber[2]} is not a JSON number (RFC 8259 §6): write null for an absent value.`;
     throw new ProblemError("malformed-body", `The body is not valid JSON${where}: ${message}.${hint}`);
   }

@@ -1,4 +1,4 @@
-import type { DerivedColumn, Zone } from "../core/index.js";
+import { emptyZoneNotes, type DerivedColumn, type Zone } from "../core/index.js";
 import { answerExtras, columnsAnswer, type UnitsChosen } from "./elastic-answer.js";
 import { ProblemError } from "./problems.js";
 import type { WellConversion } from "./well-conversion.js";
@@ -26,6 +26,9 @@ export const logsAnswer = (conversion: WellConversion, zones: readonly Zone[] | 
     depth: conversion.depthUnit,
   };
   const well = file.format === "las" ? file.las.well : undefined;
+  const depth = zones && depthForZones(conversion);
+  const extras = answerExtras(conversion.log, request, zones, depth, derived);
+  const zoneNotes = depth && extras.zones ? emptyZoneNotes(depth, extras.zones, conversion.depthUnit).map((message) => ({ message })) : [];
   return {
     ...columnsAnswer(conversion.log, request, units, { depth: conversion.depth }),
     input_format: file.format,
@@ -42,7 +45,7 @@ export const logsAnswer = (conversion: WellConversion, zones: readonly Zone[] | 
     },
     curves: curves as Required<Pick<typeof curves, "vp">> & Omit<typeof curves, "vp">,
     input_curves: file.table.curves.map(({ mnemonic, unit, description }) => ({ mnemonic, unit, description })),
-    warnings: conversion.warnings,
-    ...answerExtras(conversion.log, request, zones, zones && depthForZones(conversion), derived),
+    warnings: [...conversion.warnings, ...zoneNotes],
+    ...extras,
   };
 };

@@ -146,8 +146,8 @@ export const unusableData = (message: string, issues: readonly { field: string; 
 
 export const UNKNOWN_FIELD_MESSAGE = "unknown field; see /openapi.yaml for the accepted fields (names are lower case)";
 
-/** The 422 problem for a well file a reader refused (`WellFileError`), with the line where there is one. */
-export const unreadableFile = (error: { code: string; message: string; line?: number }): ProblemError =>
-  new ProblemError("unreadable-file", `The well file cannot be read: ${error.message}.`, [
+/** The 422 problem for a well file a reader refused (`WellFileError`), with the line where there is one, and any hint on the likely cause. */
+export const unreadableFile = (error: { code: string; message: string; line?: number }, hint?: string): ProblemError =>
+  new ProblemError("unreadable-file", `The well file cannot be read: ${error.message}.${hint === undefined ? "" : ` ${hint}`}`, [
     { field: "body", ...(error.line === undefined ? {} : { line: error.line }), message: `${error.code}: ${error.message}` },
   ]);

@@ -2,6 +2,7 @@ import {
   absentAsNaN,
   acceptedSpellings,
   computeElasticLog,
+  CORRELATIONS,
   depthOrderNotes,
   detectCurves,
   InputIssues,
@@ -14,6 +15,7 @@ import {
   type DepthUnit,
   type ElasticLog,
   type ElasticLogRequest,
+  type InputIssue,
   type SonicCurve,
   type UnitKind,
   type VelocityUnit,
@@ -115,6 +117,26 @@ export interface ConversionPlan {
   warnings: { line?: number; message: string }[];
 }
 
+const GAP_FILLS = {
+  vs: { option: "vs_from", predicts: "Vs", kind: "vs" },
+  rho: { option: "rho_from", predicts: "bulk density", kind: "density" },
+} as const;
+
+/**
+ * A missing shear or density curve (its role's issue when no curve was named for it) can be predicted from Vp
+ * instead: the issue names the option, as the single-point GET does, and the correlations it takes.
+ */
+const withGapFill = (issue: InputIssue, overrides: CurveOverrides): InputIssue => {
+  const role = issue.field === "vs_curve" ? "vs" : issue.field === "rho_curve" ? "rho" : undefined;
+  if (role === undefined || overrides[role] !== undefined) return issue;
+  const fill = GAP_FILLS[role];
+  const ids = CORRELATIONS.filter((correlation) => correlation.kind === fill.kind).map((correlation) => correlation.id);
+  return {
+    ...issue,
+    message: `${issue.message}, or give ${fill.option} to predict ${fill.predicts} from Vp by a published correlation (${ids.join(", ")}; GET /v1/correlations?kind=${fill.kind} describes them)`,
+  };
+};
+
 /** Finds the curves and settles their units from the header (curves and null value) of a file; throws ProblemError when they cannot be. */
 export const planConversion = (
   header: { curves: CurveInfo[]; nullValue: number | undefined; warnings?: readonly { line?: number; message: string }[] },
@@ -126,10 +148,11 @@ export const planConversion = (
     mapping = detectCurves(header.curves, options.curves, optional);
   } catch (error) {
     if (!(error instanceof InputIssues)) throw error;
+    const issues = error.issues.map((issue) => withGapFill(issue, options.curves));
     throw new ProblemError(
       "unusable-file",
-      `The curves to use could not be settled: ${error.message}.`,
-      error.issues.map((issue) => ({ field: `query.${issue.field}`, message: issue.message })),
+      `The curves to use could not be settled: ${new InputIssues(issues).message}.`,
+      issues.map((issue) => ({ field: `query.${issue.field}`, message: issue.message })),
     );
   }
   const warnings: ConversionPlan["warnings"] = [...(header.warnings ?? [])];
@@ -138,6 +161,11 @@ export const planConversion = (
   const rho = mapping.rho && resolveRole("rho", mapping.rho, options.units.rho, warnings);
   const depth = mapping.depth && resolveRole("depth", mapping.depth, options.units.depth, warnings);
   const nullValue = options.nullValue ?? header.nullValue ?? USUAL_NULL_VALUE;
+  if (options.nullValue !== undefined && header.nullValue !== undefined && options.nullValue !== header.nullValue) {
+    warnings.push({
+      message: `null_value ${options.nullValue} overrides the NULL ${header.nullValue} that the file declares: a sample of ${header.nullValue} is read as a value, and ${options.nullValue} marks an absent sample`,
+    });
+  }
   if (!vs) warnings.push({ message: `no shear curve: Vs of every sample is predicted by ${options.fillShear?.correlation.id}` });
   if (!rho) warnings.push({ message: `no density curve: bulk density of every sample is predicted by ${options.fillDensity?.correlation.id}` });
   const { curves: _curves, units: _units, nullValue: _nullValue, ...computation } = options;

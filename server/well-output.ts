@@ -32,7 +32,7 @@ import type { WellHeader } from "./well-upload.js";
 export interface RowBatch {
   /** Row number (from 0) of the batch's first row in the file. */
   first: number;
-  /** The file's columns for these rows, one per curve, as read. */
+  /** The file's columns for these rows, one per curve, as read, except that an absent value (the null value) is NaN. */
   input: readonly Float64Array[];
   log: ElasticLog;
   derived: Map<string, DerivedColumn> | undefined;

@@ -96,9 +96,11 @@ export async function* convertWellStream(source: AsyncIterable<Uint8Array>, task
     const { plan, output, curveCount } = setup as NonNullable<typeof setup>;
     const columns = held.length === 0 ? Array.from({ length: curveCount }, () => new Float64Array(0)) : takeHeld(count);
     const log = computeElasticLog(requestForRows(plan, columns));
+    // An absent input value (NaN where the reader read NA, NaN or an empty cell; else the null value) is NaN from here on, so
+    // that it is written as every absent value is: an empty cell in CSV, the answer's NULL in LAS, null in NDJSON.
+    // A column holding no null value is passed on as it is (one scan, no copy).
+    for (let c = 0; c < columns.length; c++) columns[c] = absentAsNaN(columns[c], plan.nullValue);
     const depthIndex = plan.curves.depth?.index;
-    // An absent depth is written as any absent value is (the null value in LAS, an empty cell in CSV, null in NDJSON).
-    if (depthIndex !== undefined) columns[depthIndex] = absentAsNaN(columns[depthIndex], plan.nullValue);
     const depth = depthIndex === undefined ? undefined : columns[depthIndex];
     const derived = deriveProperties(log, { correlations: ids }, "query");
     mergeSummary(summary, summariseFlags(log.flags, log.invalidMask));

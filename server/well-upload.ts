@@ -8,9 +8,11 @@ import {
   type LasHeaderView,
   type LasReader,
   type WellTable,
+  isWellFileError,
+  LineBreakWatch,
   WellFileError,
 } from "../core/index.js";
-import { ProblemError } from "./problems.js";
+import { ProblemError, unreadableFile } from "./problems.js";
 
 /** What the reader noticed about the bytes themselves (their encoding), for the answer's warnings. */
 export type ReadingNote = { line?: number; message: string };
@@ -86,6 +88,14 @@ const refuseNonText = (first: Uint8Array): void => {
   }
 };
 
+/**
+ * Added to the problem of a file that cannot be read when its body has no line break at all, yet looks like a
+ * file: `curl -d @file` (also `--data`) strips carriage returns and newlines from the file it sends, where
+ * `--data-binary @file` sends it as it is (curl's manual; from memory).
+ */
+export const lostLineBreaksHint = (format: "las" | "csv"): string =>
+  `The body has no line breaks: if it was sent with curl -d, send it with --data-binary instead (curl -d removes line breaks; --data-binary @well.${format} sends the file as it is).`;
+
 /** The header of a well file as far as converting its rows needs: what a streaming reader knows before the samples. */
 export type WellHeader = (
   | { format: "las"; header: LasHeaderView; curves: CurveInfo[]; nullValue: number | undefined }
@@ -106,6 +116,8 @@ export class WellFileReader {
   private las: LasReader | undefined;
   private csv: CsvReader | undefined;
   private started = false;
+  /** Whether the text has lost its line breaks (see `LineBreakWatch`), for the hint of a file that cannot be read. */
+  private readonly lineBreaks = new LineBreakWatch();
   /** What was noticed about the bytes (the encoding taken when none was declared). */
   readonly notes: ReadingNote[] = [];
 
@@ -165,20 +177,29 @@ export class WellFileReader {
     this.feed(this.decoder.decode());
     if (this.las === undefined && this.csv === undefined) {
       if (this.pending.trim() === "" || /^(\s*#[^\n]*\n?)*\s*$/.test(this.pending)) {
-        throw new ProblemError("unreadable-file", "The body holds no well data: send a LAS 2.0 or CSV file as the request body.");
+        // A file with comment lines above its header, sent without line breaks, is one long comment line.
+        const lost = (["las", "csv"] as const).find((format) => this.lineBreaks.lostLineBreaks(format));
+        throw new ProblemError("unreadable-file", `The body holds no well data: send a LAS 2.0 or CSV file as the request body.${lost === undefined ? "" : ` ${lostLineBreaksHint(lost)}`}`);
       }
       this.csv = createCsvReader();
       this.csv.push(this.pending);
     }
-    if (this.las !== undefined) {
-      const las = this.las.end();
-      return { format: "las", las, table: las.table, notes: this.notes };
+    try {
+      if (this.las !== undefined) {
+        const las = this.las.end();
+        return { format: "las", las, table: las.table, notes: this.notes };
+      }
+      const csv = (this.csv as CsvReader).end();
+      return { format: "csv", csv, table: csv.table, notes: this.notes };
+    } catch (error) {
+      const format = this.las === undefined ? "csv" : "las";
+      if (isWellFileError(error) && this.lineBreaks.lostLineBreaks(format)) throw unreadableFile(error, lostLineBreaksHint(format));
+      throw error;
     }
-    const csv = (this.csv as CsvReader).end();
-    return { format: "csv", csv, table: csv.table, notes: this.notes };
   }
 
   private feed(text: string): void {
+    this.lineBreaks.push(text);
     const reader = this.las ?? this.csv;
     if (reader !== undefined) {
       reader.push(text);

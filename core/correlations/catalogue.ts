@@ -1,6 +1,7 @@
 import { rickman2008 } from "./brittleness.js";
 import type { Correlation, CorrelationKind, Lithology } from "./correlation.js";
 import { gardner1974 } from "./density.js";
+import { appliesToLithology } from "./lithology-match.js";
 import { lal1999 as lalFrictionAngle } from "./friction-angle.js";
 import { castagna1985, greenberg1992Dolomite, greenberg1992Limestone, greenberg1992Sandstone, greenberg1992Shale, han1986 } from "./shear-velocity.js";
 import * as staticYoungsModulus from "./static-youngs-modulus.js";
@@ -43,10 +44,13 @@ const BY_ID = new Map(CORRELATIONS.map((correlation) => [correlation.id, correla
 
 export const findCorrelation = (id: string): Correlation | undefined => BY_ID.get(id);
 
-/** Entries of the given kind and lithology (either left out matches all), in catalogue order. */
+/**
+ * Entries of the given kind that apply to the given lithology (its own, its group's, `any`'s, and the stiffness
+ * classes': see LITHOLOGIES_THAT_APPLY; either left out matches all), in catalogue order.
+ */
 export const filterCorrelations = (filter: { kind?: CorrelationKind; lithology?: Lithology } = {}): Correlation[] =>
   CORRELATIONS.filter(
     (correlation) =>
       (filter.kind === undefined || correlation.kind === filter.kind) &&
-      (filter.lithology === undefined || correlation.lithology === filter.lithology),
+      (filter.lithology === undefined || appliesToLithology(correlation.lithology, filter.lithology)),
   );

@@ -5,5 +5,6 @@ export * from "./correlation.js";
 export * from "./published-units.js";
 export { defineCorrelation, type CorrelationSpec, type ResolvedOptions } from "./define-correlation.js";
 export * from "./catalogue.js";
+export * from "./lithology-match.js";
 export * from "./describe-correlation.js";
 export * from "./fill-gaps.js";

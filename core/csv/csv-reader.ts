@@ -2,7 +2,7 @@ import { WellFileError } from "../well-file-error.js";
 import type { CurveInfo, WellTable } from "../well-table.js";
 import { detectDelimiter, type CsvDelimiter } from "./csv-delimiter.js";
 import { curvesFromHeader } from "./csv-header.js";
-import { readCsvNumber } from "./csv-number.js";
+import { isDecimalCommaNumber, readCsvNumber } from "./csv-number.js";
 import { CsvTokenizer, type CsvRecordSink } from "./csv-tokenizer.js";
 import { GrowableColumn } from "../growable-column.js";
 
@@ -69,6 +69,8 @@ class ColumnSink implements CsvRecordSink {
     const column = this.column++;
     if (column >= this.columns.length) return;
     const value = readCsvNumber(text);
+    // Checked first: a row of decimal commas holds no number as read, and would be taken for a row of units.
+    if (value === undefined && isDecimalCommaNumber(text)) throw this.decimalComma(text, column, line);
     if (this.firstRow !== undefined) {
       this.firstRow.cells.push(text);
       if (value === undefined) this.firstRow.bad ??= { text, column, line };
@@ -85,6 +87,16 @@ class ColumnSink implements CsvRecordSink {
       "csv_not_a_number",
       `the value ${quote(text)} in column ${this.curves[column].mnemonic} is not a number ` +
         "(write an empty cell, NA or NaN for a missing value)",
+      line,
+    );
+  }
+
+  private decimalComma(text: string, column: number, line: number): WellFileError {
+    const cell = text.trim();
+    return new WellFileError(
+      "csv_decimal_comma",
+      `the file uses decimal commas (the value ${quote(cell)} in column ${this.curves[column].mnemonic}), which are not read here: ` +
+        `write numbers with a decimal point (${shorten(cell.replace(",", "."))}), e.g. export the file with the point as decimal separator; the delimiter may stay as it is`,
       line,
     );
   }

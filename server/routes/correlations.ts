@@ -18,7 +18,7 @@ export default async function correlationRoutes(instance: FastifyInstance): Prom
       schema: {
         tags: ["correlations"],
         summary: "The catalogue of empirical correlations (static Young's modulus, UCS, friction angle, Vs, density, brittleness).",
-        description: `Filter by kind and lithology, in any case (kind=UCS reads as ucs). ${CAUTION}`,
+        description: `Filter by kind and lithology, in any case (kind=UCS reads as ucs); lithology lists every correlation that applies to the rock named, those of its group and of any rock included. ${CAUTION}`,
         querystring: correlationFilter,
         response: { 200: correlationList, 400: problemResponse(400), 406: problemResponse(406), ...requestProblemResponses },
       },

@@ -14,6 +14,7 @@ import { prepareColumnsAnswer, type ColumnsBody } from "../elastic-columns.js";
 import { negotiateMediaType, requireJsonAnswer } from "../media-negotiation.js";
 import { ProblemError } from "../problems.js";
 import {
+  JSON_BODY_ONLY_FIELDS,
   elasticArrowQuery,
   elasticColumnsBody,
   elasticColumnsResponse,
@@ -37,6 +38,33 @@ const DESCRIPTION = [
   "Every sample is screened: impossible inputs are flagged invalid and get null moduli; implausible ones are flagged suspect.",
   "These are dynamic (log-derived) values: estimates, to be calibrated against core tests before engineering use.",
 ].join(" ");
+
+/** Whether a POST body is an Arrow IPC stream (its options then come from the query string). */
+const isArrowBody = (headers: { "content-type"?: string }): boolean =>
+  headers["content-type"]?.toLowerCase().startsWith(ARROW_STREAM_MEDIA_TYPE) === true;
+
+/**
+ * What is wrong with the query string of a POST before its schema is checked: a JSON body carries its options
+ * itself, and an Arrow body has no place for correlations, correlation_options or zones, which are answered in
+ * JSON only (the schema would call them unknown fields, which says nothing of where they belong).
+ */
+const columnsQueryProblem = (headers: { "content-type"?: string }, query: object): ProblemError | undefined => {
+  const names = Object.keys(query);
+  if (!isArrowBody(headers)) {
+    return names.length === 0
+      ? undefined
+      : new ProblemError("invalid-request", "Query parameters are the options of an Arrow body; a JSON body carries its options itself (units, null_value, limits, correlations, zones…).", [
+          { field: "query", message: "leave the query string empty with a JSON body" },
+        ]);
+  }
+  const jsonOnly = JSON_BODY_ONLY_FIELDS.filter((name) => names.includes(name));
+  if (jsonOnly.length === 0) return undefined;
+  return new ProblemError(
+    "invalid-request",
+    `Correlations and zones are answered in JSON only, and an Arrow body carries columns only: send the columns as a JSON body (Content-Type: application/json) with ${jsonOnly.join(", ")} among its fields. The query string of an Arrow body takes its units, null_value, keep_negative_poisson, vs_from, rho_from, fill and the plausibility limits.`,
+    jsonOnly.map((name) => ({ field: `query.${name}`, message: "is a field of a JSON body, not an option of an Arrow body: correlations and zones are answered in JSON only" })),
+  );
+};
 
 export default async function elasticRoutes(instance: FastifyInstance, options: ElasticRouteOptions): Promise<void> {
   const app = instance.withTypeProvider<ZodTypeProvider>();
@@ -101,6 +129,8 @@ export default async function elasticRoutes(instance: FastifyInstance, options: 
         },
       },
       config: { accepts: [JSON_MEDIA_TYPE, ARROW_STREAM_MEDIA_TYPE] },
+      // Before the query's schema, so that a JSON-only field in an Arrow request is told where it belongs.
+      preValidation: (request, _reply, done) => done(columnsQueryProblem(request.headers, request.query as object)),
       // The body schema documents the contract; the body is validated with it in prepareColumnsAnswer, on a
       // worker thread when large, so a big body is parsed and checked off the event loop.
       validatorCompiler: ({ httpPart, schema }) => (httpPart === "body" ? (data: unknown) => ({ value: data }) : validatorCompiler({ schema } as never)),
@@ -112,12 +142,7 @@ export default async function elasticRoutes(instance: FastifyInstance, options: 
       if (format === undefined) {
         throw new ProblemError("not-acceptable", `Accept "${request.headers.accept}" names no format this endpoint writes: application/json or ${ARROW_STREAM_MEDIA_TYPE}.`);
       }
-      const arrow = request.headers["content-type"]?.toLowerCase().startsWith(ARROW_STREAM_MEDIA_TYPE) === true;
-      if (!arrow && Object.keys(request.query).length > 0) {
-        throw new ProblemError("invalid-request", "Query parameters are the options of an Arrow body; a JSON body carries its options itself (units, null_value, limits…).", [
-          { field: "query", message: "leave the query string empty with a JSON body" },
-        ]);
-      }
+      const arrow = isArrowBody(request.headers);
       const body: ColumnsBody = arrow ? { kind: "arrow", bytes, query: request.query } : { kind: "json", bytes };
       const answerFormat = format === ARROW_STREAM_MEDIA_TYPE ? "arrow" : "json";
       const answer =

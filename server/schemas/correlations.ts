@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { CORRELATION_KINDS, LITHOLOGIES, MIN_RELATIVE_SPAN } from "../../core/index.js";
+import { CORRELATION_KINDS, LITHOLOGIES, MIN_RELATIVE_SPAN, type InputQuantity } from "../../core/index.js";
 
 export const correlationKind = z.enum(CORRELATION_KINDS).meta({
   id: "CorrelationKind",
@@ -8,6 +8,21 @@ export const correlationKind = z.enum(CORRELATION_KINDS).meta({
 export const lithology = z.enum(LITHOLOGIES).meta({ id: "Lithology", description: "Rock the correlation was fitted to." });
 
 const range = z.object({ min: z.number().nullable(), max: z.number().nullable() }).nullable();
+
+/** What a correlation's input is, by a unit-free name of the API's own; the unit is the input's `unit`. */
+export const inputQuantity = z.enum(["vp", "bulk_density", "dynamic_youngs_modulus", "static_youngs_modulus", "poissons_ratio"]).meta({
+  description:
+    "What the service passes: vp (compressional velocity from the sonic; a source written in slowness Δt gets 1/Vp, so its unit may be a slowness), bulk_density (from the density log, or predicted by rho_from), dynamic_youngs_modulus (from the sonic and density logs), static_youngs_modulus (predicted by the static_e correlation of the same list), poissons_ratio (dynamic, from the sonic logs). The unit is in `unit`.",
+});
+
+/** The catalogue's name of each quantity core passes to a correlation (core's names carry our fixed SI units, not the source's). */
+export const INPUT_QUANTITY_NAMES: Readonly<Record<InputQuantity, z.infer<typeof inputQuantity>>> = {
+  vpMetresPerSecond: "vp",
+  densityKilogramsPerCubicMetre: "bulk_density",
+  dynamicYoungsModulusPascals: "dynamic_youngs_modulus",
+  staticYoungsModulusPascals: "static_youngs_modulus",
+  poissonsRatio: "poissons_ratio",
+};
 const citation = z
   .object({ authors: z.string(), year: z.int(), title: z.string(), source: z.string(), doi: z.string().optional() })
   .meta({ id: "Citation" });
@@ -20,7 +35,7 @@ export const correlationDescription = z
     formula: z.string().meta({ description: "As published, in the source's units." }),
     inputs: z.array(
       z.object({
-        quantity: z.string().meta({ description: "What the service passes: vp (from the sonic), density, dynamic or static Young's modulus, Poisson's ratio." }),
+        quantity: inputQuantity,
         symbol: z.string(),
         unit: z.string().meta({ description: "Unit of the symbol in the published formula; the service converts to it." }),
         calibration_range: range.meta({ description: "Range of the source's data for this input, in `unit`; null where none is published." }),
@@ -56,7 +71,15 @@ export const correlationList = z
 /** An enum query value in any case (`UCS`, `Shale`), read as the lower-case value the schema documents. */
 const anyCase = <T extends z.ZodType>(schema: T) => z.preprocess((value) => (typeof value === "string" ? value.toLowerCase() : value), schema);
 
-export const correlationFilter = z.strictObject({ kind: anyCase(correlationKind).optional(), lithology: anyCase(lithology).optional() });
+/** How `lithology=` matches, as the query parameter's description says it (core/correlations/lithology-match.ts). */
+export const LITHOLOGY_FILTER_DESCRIPTION =
+  "The rock to list correlations for, in any case: every correlation that applies to it. A rock (sandstone, shale, limestone, dolomite) gets the correlations fitted to it, to its group (sandstone and shale are clastic; limestone and dolomite are carbonate) and to any rock. A group (clastic, carbonate) gets those fitted to the group and to any rock, not those fitted to one of its members alone (a limestone correlation is not shown to hold for a dolomite): name the rock to see those too. any gets those fitted to any rock. The stiffness classes hard_rock and soft_rock (rocks of every type, split by their dynamic Young's modulus) are listed with every rock, group and any, since they apply whatever the type (a sample's calibration range tells which of the two holds); hard_rock or soft_rock gets its own and those fitted to any rock.";
+
+export const correlationFilter = z.strictObject({
+  kind: anyCase(correlationKind).optional(),
+  // Inline rather than the Lithology component: the generated document drops a description beside a $ref.
+  lithology: anyCase(z.enum(LITHOLOGIES)).optional().meta({ description: LITHOLOGY_FILTER_DESCRIPTION }),
+});
 
 /** GET /v1/correlations/{id} takes no query parameters: any is refused as unknown, as the list refuses its own. */
 export const correlationQuery = z.strictObject({});

@@ -241,3 +241,6 @@ export const elasticArrowQuery = z.strictObject({
   ...limitFields,
 });
 export type ElasticArrowQuery = z.infer<typeof elasticArrowQuery>;
+
+/** Fields of a JSON body that an Arrow body has no place for: what they ask for is answered in JSON only. */
+export const JSON_BODY_ONLY_FIELDS = ["correlations", "correlation_options", "zones"] as const satisfies readonly (keyof typeof elasticColumnsBody.shape)[];

@@ -120,7 +120,7 @@ export const logsJsonResponse = elasticColumnsResponse
       .object({ vp: roleChoice, vs: roleChoice.optional(), rho: roleChoice.optional(), depth: roleChoice.optional() })
       .meta({ description: "Which curve was used for what, and why (vs or rho absent when predicted for every sample)." }),
     input_curves: z.array(z.object({ mnemonic: z.string(), unit: z.string(), description: z.string() })),
-    warnings: z.array(z.object({ line: z.int().optional(), message: z.string() })).meta({ description: "Things in the file worth knowing that did not stop the conversion." }),
+    warnings: z.array(z.object({ line: z.int().optional(), message: z.string() })).meta({ description: "Things in the file worth knowing that did not stop the conversion, and zones that hold no sample (outside the log's depths, as with tops in feet for a log in metres, or between its samples), with the log's first and last depth." }),
     zones: z.array(zoneSummarySchema).optional(),
   })
   .meta({ id: "WellConversion", description: "A whole well converted: columns row-aligned with the file's rows, plus how the file was read." });

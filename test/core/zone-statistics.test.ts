@@ -3,7 +3,7 @@ import { describe, expect, it } from "vitest";
 import { InputIssues } from "../../core/input-issues.js";
 import { percentileOfSorted } from "../../core/percentile.js";
 import { flagBit, invalidatingMask } from "../../core/qc-flags.js";
-import { summariseZones } from "../../core/zone-statistics.js";
+import { emptyZoneNotes, summariseZones } from "../../core/zone-statistics.js";
 
 const INVALID = invalidatingMask(false);
 
@@ -215,5 +215,61 @@ describe("summariseZones", () => {
 
   it("refuses columns of a length unlike the depth column", () => {
     expect(() => summariseZones(depth, zones, { x: new Float64Array(3) }, flags, INVALID)).toThrow(/properties\.x/);
+  });
+});
+
+describe("emptyZoneNotes", () => {
+  // A fictional well logged from 1450 m to 1907 m, every 0.5 m.
+  const logged = Float64Array.from({ length: 915 }, (_, i) => 1450 + i * 0.5);
+  const notesFor = (depths: Float64Array, zones: { name: string; top: number; base: number }[], unit: "m" | "ft" = "m") =>
+    emptyZoneNotes(depths, summariseZones(depths, zones, {}, new Uint32Array(depths.length), INVALID), unit);
+
+  it("names a zone below the log, its top and base and the log's first and last depth, and the reading in feet (1 ft = 0.3048 m exactly, international foot)", () => {
+    const [note, ...rest] = notesFor(logged, [{ name: "A", top: 5000, base: 6000 }]);
+    expect(rest).toEqual([]);
+    expect(note).toContain('zone "A" (top 5000 m, base 6000 m) holds no sample');
+    expect(note).toContain("entirely below the log, whose depths");
+    expect(note).toContain("from 1450 m (first) to 1907 m (last)");
+    expect(note).toMatch(/check the depth unit of the zones/i);
+    expect(note).toContain("read in ft, the zone would run from 1524 m to 1828.8 m, which overlaps the log");
+  });
+
+  it("names a zone above the log, without the feet reading when that would not reach the log either", () => {
+    const [note] = notesFor(logged, [{ name: "Shallow", top: 100, base: 200 }]);
+    expect(note).toContain("entirely above the log");
+    expect(note).not.toContain("read in ft");
+  });
+
+  it("gives the first and last depth in row order for a log recorded upwards", () => {
+    const [note] = notesFor(logged.slice().reverse(), [{ name: "A", top: 5000, base: 6000 }]);
+    expect(note).toContain("from 1907 m (first) to 1450 m (last)");
+  });
+
+  it("suggests metres for zones in metres on a log in feet", () => {
+    const feet = logged.map((d) => d / 0.3048);
+    const [note] = notesFor(feet, [{ name: "B", top: 1500, base: 1600 }], "ft");
+    expect(note).toContain("entirely above the log");
+    expect(note).toContain("read in m");
+  });
+
+  it("names a zone within the log's range that holds no sample (between two samples), and passes over zones with samples", () => {
+    const notes = notesFor(logged, [
+      { name: "Held", top: 1500, base: 1600 },
+      { name: "Thin", top: 1500.1, base: 1500.3 },
+    ]);
+    expect(notes).toHaveLength(1);
+    expect(notes[0]).toContain('zone "Thin" (top 1500.1 m, base 1500.3 m) holds no sample');
+    expect(notes[0]).toContain("reaches into the log");
+    expect(notes[0]).toContain("from 1450 m (first) to 1907 m (last)");
+  });
+
+  it("says so when the log has no depth at all, and leaves absent depths out of the first and last", () => {
+    expect(notesFor(Float64Array.of(NaN, NaN), [{ name: "A", top: 1, base: 2 }])).toEqual(['zone "A" (top 1 m, base 2 m) holds no sample: the log has no depth value']);
+    const [note] = notesFor(Float64Array.of(NaN, 1450, 1451, NaN), [{ name: "A", top: 5000, base: 6000 }]);
+    expect(note).toContain("from 1450 m (first) to 1451 m (last)");
+  });
+
+  it("is empty when every zone holds a sample", () => {
+    expect(notesFor(logged, [{ name: "All", top: 1450, base: 1907 }])).toEqual([]);
   });
 });

@@ -68,4 +68,32 @@ describe("Apache Arrow IPC on POST /v1/elastic", () => {
     const png = await app.inject({ method: "POST", url: "/v1/elastic", payload: COLUMNS, headers: { accept: "image/png" } });
     expect(png.statusCode).toBe(406);
   });
+
+  it("refuses correlations and zones in the query of an Arrow body with a 400 that says they are answered in JSON only, from a JSON body", async () => {
+    const app = await build();
+    const send = (query: string) =>
+      app.inject({ method: "POST", url: `/v1/elastic${query}`, payload: arrowBody(COLUMNS), headers: { "content-type": ARROW, accept: "application/json" } });
+    const correlations = await send("?correlations=ucs.mcnally1987");
+    expect(correlations.statusCode).toBe(400);
+    expect(correlations.headers["content-type"]).toMatch(/^application\/problem\+json/);
+    const problem = correlations.json();
+    expect(problem.detail).toMatch(/answered in JSON only/);
+    expect(problem.detail).toMatch(/JSON body \(Content-Type: application\/json\)/);
+    expect(problem.detail).not.toMatch(/unknown field/);
+    expect(problem.errors).toEqual([{ field: "query.correlations", message: expect.stringContaining("JSON only") }]);
+    const both = await send("?zones=A:2100:2101&modulus_unit=GPa&correlation_options=x");
+    expect(both.statusCode).toBe(400);
+    expect(both.json().errors.map((error: { field: string }) => error.field)).toEqual(["query.correlation_options", "query.zones"]);
+    // Anything else unknown is still an unknown field.
+    const other = await send("?colour=blue");
+    expect(other.statusCode).toBe(400);
+    expect(other.json().errors).toEqual([{ field: "query.colour", message: expect.stringContaining("unknown field") }]);
+  });
+
+  it("tells a JSON body with correlations in the query to leave the query string empty, before checking its names", async () => {
+    const app = await build();
+    const response = await app.inject({ method: "POST", url: "/v1/elastic?correlations=ucs.mcnally1987", payload: COLUMNS });
+    expect(response.statusCode).toBe(400);
+    expect(response.json().errors).toEqual([{ field: "query", message: "leave the query string empty with a JSON body" }]);
+  });
 });

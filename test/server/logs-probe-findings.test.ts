@@ -59,6 +59,119 @@ describe("a depth equal to the null value is absent (CWLS LAS 2.0, ~Well NULL; t
   });
 });
 
+/** The first `count` cells of each data record of a CSV answer (RFC 4180: CRLF ends every record; no quoted cells here). */
+const csvCells = (body: string, count: number): string[][] =>
+  body
+    .split("\r\n")
+    .slice(1, -1)
+    .map((record) => record.split(",").slice(0, count));
+
+/** The first `count` values of each ~A line of a LAS answer, as written (WRAP NO: one sample per line). */
+const lasTokens = (body: string, count: number): string[][] => {
+  const lines = body.split("\r\n");
+  return lines.slice(lines.indexOf("~A") + 1, -1).map((line) => line.trim().split(/\s+/).slice(0, count));
+};
+
+/** Marram Bank 7 with a NULL of its own, -9999 (the helper's file says -999.25). */
+const withFileNull = (las: string): string => {
+  expect(las).toContain("NULL. -999.25 :");
+  return las.replace("NULL. -999.25 :", "NULL. -9999 :");
+};
+
+// CWLS LAS 2.0: the ~W NULL item is the value that stands for an absent sample, and a LAS answer declares its own.
+// RFC 4180 has no way to declare a null value: a CSV answer leaves the field of an absent value empty (RFC 4180 §2
+// allows empty fields), for an echoed input value as for a computed one, so a CSV reader never takes a NULL for data.
+describe("an absent input value is written as every absent value of the answer is: an empty cell in CSV, the answer's NULL in LAS", () => {
+  it("LAS in, CSV out: the file's NULL, however it is written, is an empty cell; present values are echoed as read", async () => {
+    const response = await post(lasWith("1 90 -999.25 2.4", "2 90.50 160 -999.2500", "3 -999.25 160 2.40"), "?format=csv");
+    expect(response.statusCode).toBe(200);
+    expect(csvCells(response.body, 4)).toEqual([
+      ["1", "90", "", "2.4"],
+      ["2", "90.5", "160", ""],
+      ["3", "", "160", "2.4"],
+    ]);
+  });
+
+  it("the demo well as CSV: the first row's DTS, -999.25 in the LAS file, is an empty cell like the moduli it leaves uncomputed", async () => {
+    const demo = readFileSync(new URL("../../examples/demo-well.las", import.meta.url), "utf8");
+    const first = (await post(demo, "?format=csv")).body.split("\r\n")[1];
+    expect(first.startsWith("1450,100.53,,2.507,100.52,,")).toBe(true);
+    expect(first).not.toContain("-999.25");
+  });
+
+  it("CSV in, CSV out: NA, NaN, null, -, an empty cell and the null value (default -999.25) all come back as empty cells", async () => {
+    const response = await post("DEPT,DTC,DTS,RHOB,GR\n1,90,NA,2.4,-999.25\n2,90,160,,NaN\n3,-,null,2.4,\n", "?format=csv");
+    expect(response.statusCode).toBe(200);
+    expect(csvCells(response.body, 5)).toEqual([
+      ["1", "90", "", "2.4", ""],
+      ["2", "90", "160", "", ""],
+      ["3", "", "", "2.4", ""],
+    ]);
+  });
+
+  it("the request's null_value decides what is absent: its value is an empty cell, and -999.25 is then a value, echoed as read", async () => {
+    const response = await post("DEPT,DTC,DTS,RHOB\n1,90,-9999,2.4\n2,90,-999.25,2.4\n", "?format=csv&null_value=-9999");
+    expect(csvCells(response.body, 4)).toEqual([
+      ["1", "90", "", "2.4"],
+      ["2", "90", "-999.25", "2.4"],
+    ]);
+  });
+
+  it("LAS in, LAS out under null_value: NaN and the null value are written as the NULL the answer declares; the file's own NULL is then a value", async () => {
+    const file = withFileNull(lasWith("1 90 -9999 2.4", "2 NaN 160 2.4", "3 90 160 -999.2500"));
+    const response = await post(file, "?format=las&null_value=-999.25");
+    expect(response.statusCode).toBe(200);
+    expect(parseLas(response.body).well.nullValue).toBe(-999.25);
+    expect(lasTokens(response.body, 5)).toEqual([
+      ["1", "90", "-9999", "2.4", "-999.25"],
+      ["2", "-999.25", "160", "2.4", "-999.25"],
+      ["3", "90", "160", "-999.25", "-999.25"],
+    ]);
+  });
+
+  it("CSV in, LAS out: an absent cell is written as the NULL the answer declares, the default -999.25 or the request's null_value", async () => {
+    const body = "DEPT,DTC,DTS,RHOB\n1,90,NA,2.4\n2,90,160,-999.25\n";
+    const usual = (await post(body, "?format=las")).body;
+    expect(parseLas(usual).well.nullValue).toBe(-999.25);
+    expect(lasTokens(usual, 4)).toEqual([
+      ["1", "90", "-999.25", "2.4"],
+      ["2", "90", "160", "-999.25"],
+    ]);
+    const own = (await post(body, "?format=las&null_value=-9999")).body;
+    expect(parseLas(own).well.nullValue).toBe(-9999);
+    expect(lasTokens(own, 4)).toEqual([
+      ["1", "90", "-9999", "2.4"],
+      ["2", "90", "160", "-999.25"],
+    ]);
+  });
+
+  it("a null_value that overrides a different NULL declared by the file is a warning, in the JSON warnings and in the LAS answer's ~Other", async () => {
+    const file = withFileNull(lasWith("1 90 -9999 2.4", "2 90 160 2.4", "3 90 160 -999.25"));
+    const message = "null_value -999.25 overrides the NULL -9999 that the file declares: a sample of -9999 is read as a value, and -999.25 marks an absent sample";
+    const json = (await post(file, "?null_value=-999.25")).json();
+    expect(json.warnings).toContainEqual({ message });
+    expect(json.well.null_value).toBe(-999.25);
+    // Read as a value, a slowness of -9999 is no rock's; -999.25 is absent.
+    expect(json.flags).toEqual([
+      { index: 0, code: "non_positive", severity: "invalid" },
+      { index: 2, code: "missing", severity: "invalid" },
+    ]);
+    expect((await post(file, "?format=las&null_value=-999.25")).body).toContain(`  ${message}\r\n`);
+  });
+
+  it("no such warning when null_value says what the file says, when the query gives none, or when the file (CSV) declares none", async () => {
+    const file = withFileNull(lasWith("1 90 -9999 2.4", "2 90 160 2.4", "3 90 160 2.4"));
+    for (const [body, query] of [
+      [file, "?null_value=-9999.0"],
+      [file, ""],
+      ["DEPT,DTC,DTS,RHOB\n1,90,160,2.4\n", "?null_value=-9999"],
+    ]) {
+      const json = (await post(body, query)).json();
+      expect(JSON.stringify(json.warnings), query).not.toContain("overrides the NULL");
+    }
+  });
+});
+
 describe("a LAS answer sent back in: the input's ~Parameter items named like the service's are renamed, none dropped", () => {
   it("the second answer of the demo well has each parameter once, the first answer's kept as _2 with its original name noted", async () => {
     const demo = readFileSync(new URL("../../examples/demo-well.las", import.meta.url), "utf8");

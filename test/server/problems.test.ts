@@ -38,6 +38,18 @@ describe("problem details (RFC 9457)", () => {
     expect(response.json().detail).toContain("line 2, column");
   });
 
+  it.each([
+    // Node 20's JSON.parse words these without "position N" ("Unexpected token ']', …"): the place is found by a scan (RFC 8259 grammar).
+    ["a trailing comma in an array", '{"dtc":[90,],"dts":[160],"rho":[2.4]}', "line 1, column 12"],
+    ["a trailing comma on its own line", '{"dtc": [90,\n  91,\n],\n "dts": [160, 161], "rho": [2.4, 2.4]}', "line 3, column 1"],
+    ["a misspelt literal", '{"dtc": [90],\n "dts": [160], "rho": [2.4],\n "keep_negative_poisson": ture}', "line 3, column 28"],
+    ["a text cut short", '{"dtc": [90],\n "dts": [16', "line 2, column 12"],
+  ])("the JSON syntax error of %s names the line and column of the offending character", async (_name, body, place) => {
+    const response = await raw("POST", "/v1/elastic", body, "application/json");
+    expect(response.statusCode).toBe(400);
+    expect(response.json()).toMatchObject({ type: "/problems/malformed-body", detail: expect.stringContaining(`The body is not valid JSON (at ${place}): `) });
+  });
+
   it("every problem type URI resolves to an explanation (RFC 9457 §3.1.1)", async () => {
     const app = await build();
     for (const [slug, kind] of Object.entries(PROBLEM_KINDS)) {

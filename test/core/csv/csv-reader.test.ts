@@ -195,10 +195,11 @@ describe("parseCsv errors", () => {
     expect(error.line).toBe(4);
   });
 
-  it("rejects a decimal comma, hexadecimal and other text the number grammar lacks", () => {
-    for (const cell of ["1,5", "0x10", "1e", "e5", "1.2.3", "--1", "inf"]) {
+  it("rejects a decimal comma, hexadecimal and other text the number grammar lacks; a decimal comma is told as such (csv_decimal_comma)", () => {
+    for (const cell of ["0x10", "1e", "e5", "1.2.3", "--1", "inf"]) {
       expect(failure(() => parseCsv(`A;B\n1;${cell}\n`)).code).toBe("csv_not_a_number");
     }
+    expect(failure(() => parseCsv("A;B\n1;1,5\n")).code).toBe("csv_decimal_comma");
   });
 
   it("names the line of a row with more or fewer fields than the header (csv_ragged_row)", () => {

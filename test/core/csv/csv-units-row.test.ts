@@ -4,17 +4,9 @@
  */
 import { describe, expect, it } from "vitest";
 import { createCsvReader, parseCsv } from "../../../core/csv/csv-reader.js";
-import { WellFileError } from "../../../core/well-file-error.js";
+import { wellFileFailure } from "../../helpers/well-file-failure.js";
 
-const failure = (text: string): WellFileError => {
-  try {
-    parseCsv(text);
-  } catch (error) {
-    expect(error).toBeInstanceOf(WellFileError);
-    return error as WellFileError;
-  }
-  throw new Error("the text was read without an error");
-};
+const failure = (text: string) => wellFileFailure(parseCsv, text);
 
 describe("a row of units under the header (RFC 4180 §2: a header line, then records; units belong in the header here)", () => {
   it("says the first data row looks like a row of units and shows the header with units in brackets", () => {

@@ -4,21 +4,13 @@
  */
 import { describe, expect, it } from "vitest";
 import { parseLas } from "../../../core/las/las-reader.js";
-import { WellFileError } from "../../../core/well-file-error.js";
+import { wellFileFailure } from "../../helpers/well-file-failure.js";
 import { marramBankLas } from "../../helpers/marram-bank-las.js";
 
 /** Header on lines 1–14, `~A` on line 15, samples from line 16. */
 const lasWith = (...rows: string[]): string => marramBankLas({ start: "1510.0", stop: "1511.0", step: "0.5" }, ...rows);
 
-const failureOf = (text: string): WellFileError => {
-  try {
-    parseLas(text);
-  } catch (error) {
-    expect(error).toBeInstanceOf(WellFileError);
-    return error as WellFileError;
-  }
-  throw new Error("the file was read without an error");
-};
+const failureOf = (text: string) => wellFileFailure(parseLas, text);
 
 describe("an absent index (the ~Well NULL) is no depth to the index checks (CWLS LAS 2.0, Appendix 1 Part 4, ~W NULL, STRT, STOP, STEP)", () => {
   it("a NULL depth between regular ones raises no STEP mismatch, and one warning says the index is absent", () => {
