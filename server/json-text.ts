@@ -2,13 +2,19 @@ import secureJson from "secure-json-parse";
 import { duplicateNameIssues, InputIssues, jsonSyntaxErrorAt, readJsonColumns } from "../core/index.js";
 import { ProblemError } from "./problems.js";
 
-/** Line and column (1-based) of a character offset, so a script author can find the mistake. */
+/**
+ * Line and column (1-based) of a character offset, so a script author can find the mistake. A line ends at LF, CR
+ * LF or a lone CR (RFC 8259 §2 allows each as whitespace; an editor counts a lone CR as a line break too).
+ */
 const lineAndColumn = (text: string, offset: number): string => {
   let line = 1;
   let lineStart = 0;
-  for (let i = text.indexOf("\n"); i !== -1 && i < offset; i = text.indexOf("\n", i + 1)) {
-    line++;
-    lineStart = i + 1;
+  for (let i = 0; i < offset && i < text.length; i++) {
+    const code = text.charCodeAt(i);
+    if (code === 10 || (code === 13 && text.charCodeAt(i + 1) !== 10)) {
+      line++;
+      lineStart = i + 1;
+    }
   }
   return `line ${line}, column ${offset - lineStart + 1}`;
 };

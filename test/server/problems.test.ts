@@ -44,6 +44,9 @@ describe("problem details (RFC 9457)", () => {
     ["a trailing comma on its own line", '{"dtc": [90,\n  91,\n],\n "dts": [160, 161], "rho": [2.4, 2.4]}', "line 3, column 1"],
     ["a misspelt literal", '{"dtc": [90],\n "dts": [160], "rho": [2.4],\n "keep_negative_poisson": ture}', "line 3, column 28"],
     ["a text cut short", '{"dtc": [90],\n "dts": [16', "line 2, column 12"],
+    // CR LF (a Windows editor) is one line break; a lone CR (an old Mac editor) is one too.
+    ["a trailing comma after CR LF line breaks", '{"dtc": [90,\r\n  91,\r\n],\r\n "dts": [160, 161], "rho": [2.4, 2.4]}', "line 3, column 1"],
+    ["a trailing comma after lone CR line breaks", '{"dtc": [90,\r  91,\r],\r "dts": [160, 161], "rho": [2.4, 2.4]}', "line 3, column 1"],
   ])("the JSON syntax error of %s names the line and column of the offending character", async (_name, body, place) => {
     const response = await raw("POST", "/v1/elastic", body, "application/json");
     expect(response.statusCode).toBe(400);
