@@ -1,4 +1,5 @@
 import {
+  absentAsNaN,
   InputIssues,
   MAX_LISTED_ISSUES,
   requireEqualLengths,
@@ -107,7 +108,9 @@ export const columnsRequest = (body: ElasticColumnsBody): ColumnsRequest => {
   const length = requireEqualLengths(columns);
   // The null value marks an absent depth as it marks an absent log value (as in a well file): NaN, echoed as null,
   // in no zone.
-  for (const index of [columns.depth, columns.top, columns.base]) if (index !== undefined) absentWhereNull(index, body.null_value);
+  columns.depth &&= absentAsNaN(columns.depth, body.null_value);
+  columns.top &&= absentAsNaN(columns.top, body.null_value);
+  columns.base &&= absentAsNaN(columns.base, body.null_value);
   if (columns.top !== undefined && columns.base !== undefined) requireTopsAboveBases(columns.top, columns.base);
   return {
     core: {
@@ -126,11 +129,6 @@ export const columnsRequest = (body: ElasticColumnsBody): ColumnsRequest => {
     top: columns.top,
     base: columns.base,
   };
-};
-
-/** Writes NaN over every value equal to `nullValue`, in place (the column is this request's own copy). */
-const absentWhereNull = (values: Float64Array, nullValue: number): void => {
-  for (let i = 0; i < values.length; i++) if (values[i] === nullValue) values[i] = Number.NaN;
 };
 
 /**
