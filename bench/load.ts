@@ -13,7 +13,7 @@ import autocannon from "autocannon";
 import { Agent, Pool, request } from "undici";
 import { parseCsv } from "../core/index.js";
 import { forkProbeService } from "../test/robustness/service-process.js";
-import { freePort, residentMegabytes, root, start, stop } from "./processes.js";
+import { freePort, residentMegabytes, root, start, stop, withBareStream } from "./processes.js";
 import { milliseconds, yesOrNo } from "./report.js";
 
 const MIX_CONNECTIONS = 50;
@@ -227,14 +227,7 @@ const measureProbeDuringWholeWell = async (base: string): Promise<Row[]> => {
   const body = columnsBody(WHOLE_WELL_SAMPLES);
   const { converted, latencies, failures } = await probeDuringWholeWell(base, "/v1/elastic", "application/json", body);
   // The same transfer with no work at all: what this machine allows any Node server while it sends that much.
-  const port = await freePort();
-  const bare = await start("bare-stream", ["bench/bare-stream.mjs"], { PORT: String(port), ANSWER_BYTES: String(converted.answerBytes) }, /ready/);
-  let floor: Awaited<ReturnType<typeof probeDuringWholeWell>>;
-  try {
-    floor = await probeDuringWholeWell(`http://127.0.0.1:${port}`, "/v1/elastic", "application/json", body);
-  } finally {
-    await stop(bare);
-  }
+  const floor = await withBareStream(converted.answerBytes, (bare) => probeDuringWholeWell(bare, "/v1/elastic", "application/json", body));
   return [
     ...conversionRows(
       `One POST /v1/elastic of ${WHOLE_WELL_SAMPLES.toLocaleString("en")} samples as JSON columns (${(body.length / 2 ** 20).toFixed(0)} MiB in, ${(converted.answerBytes / 2 ** 20).toFixed(0)} MiB out)`,

@@ -107,3 +107,18 @@ export const firstTouchCost = (): { firstMsPerMiB: number; againMsPerMiB: number
   const t2 = performance.now();
   return { firstMsPerMiB: (t1 - t0) / mebibytes, againMsPerMiB: (t2 - t1) / mebibytes };
 };
+
+/**
+ * Runs `use` against a bare Node server (bench/bare-stream.mjs) that reads a POST body and streams back
+ * `answerBytes` bytes with no work at all, and stops the server afterwards: the floor any server meets on this
+ * machine when it moves that much.
+ */
+export const withBareStream = async <T>(answerBytes: number, use: (base: string) => Promise<T>): Promise<T> => {
+  const port = await freePort();
+  const bare = await start("bare-stream", ["bench/bare-stream.mjs"], { PORT: String(port), ANSWER_BYTES: String(answerBytes) }, /ready/);
+  try {
+    return await use(`http://127.0.0.1:${port}`);
+  } finally {
+    await stop(bare);
+  }
+};

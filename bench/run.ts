@@ -12,7 +12,7 @@ import { request } from "undici";
 import { arrowCase } from "./arrow-case.js";
 import { fileCases, memoryCase } from "./file-cases.js";
 import { kernelCase } from "./kernel-case.js";
-import { collectGarbage, cpuMilliseconds, firstTouchCost, freePort, root, settle, start, stop } from "./processes.js";
+import { collectGarbage, cpuMilliseconds, firstTouchCost, freePort, root, settle, start, stop, withBareStream } from "./processes.js";
 import { attempt, markdownTable, median, milliseconds, yesOrNo, type Row } from "./report.js";
 import { syntheticWell, type SyntheticWell } from "./synthetic-well.js";
 
@@ -50,22 +50,17 @@ const exchange = async (url: string, body: string) => {
  * The same exchange with a bare Node server that reads the body and streams back as many bytes with no work at
  * all (bench/bare-stream.mjs): what moving these bytes and decoding them costs on this machine, whatever the server.
  */
-const bareExchange = async (body: string, answerBytes: number, runs: number) => {
-  const port = await freePort();
-  const bare = await start("bare-stream", ["bench/bare-stream.mjs"], { PORT: String(port), ANSWER_BYTES: String(answerBytes) }, /ready/);
-  try {
+const bareExchange = (body: string, answerBytes: number, runs: number) =>
+  withBareStream(answerBytes, async (bare) => {
     const totals: number[] = [];
     const decodes: number[] = [];
     for (let run = 0; run < runs; run++) {
-      const { totalMs, decodeMs } = await exchange(`http://127.0.0.1:${port}/v1/elastic`, body);
+      const { totalMs, decodeMs } = await exchange(`${bare}/v1/elastic`, body);
       totals.push(totalMs);
       decodes.push(decodeMs);
     }
     return { totalMs: median(totals), decodeMs: median(decodes) };
-  } finally {
-    await stop(bare);
-  }
-};
+  });
 
 /** JSON POST beside its floor; also gives the median end-to-end time for the Arrow comparison. */
 const jsonCase = async (base: string, well: SyntheticWell, runs: number): Promise<{ row: Row; endToEndMs: number }> => {
