@@ -9,20 +9,20 @@ export const lithology = z.enum(LITHOLOGIES).meta({ id: "Lithology", description
 
 const range = z.object({ min: z.number().nullable(), max: z.number().nullable() }).nullable();
 
-/** What a correlation's input is, by a unit-free name of the API's own; the unit is the input's `unit`. */
-export const inputQuantity = z.enum(["vp", "bulk_density", "dynamic_youngs_modulus", "static_youngs_modulus", "poissons_ratio"]).meta({
-  description:
-    "What the service passes: vp (compressional velocity from the sonic; a source written in slowness Δt gets 1/Vp, so its unit may be a slowness), bulk_density (from the density log, or predicted by rho_from), dynamic_youngs_modulus (from the sonic and density logs), static_youngs_modulus (predicted by the static_e correlation of the same list), poissons_ratio (dynamic, from the sonic logs). The unit is in `unit`.",
-});
-
 /** The catalogue's name of each quantity core passes to a correlation (core's names carry our fixed SI units, not the source's). */
-export const INPUT_QUANTITY_NAMES: Readonly<Record<InputQuantity, z.infer<typeof inputQuantity>>> = {
+export const INPUT_QUANTITY_NAMES = {
   vpMetresPerSecond: "vp",
   densityKilogramsPerCubicMetre: "bulk_density",
   dynamicYoungsModulusPascals: "dynamic_youngs_modulus",
   staticYoungsModulusPascals: "static_youngs_modulus",
   poissonsRatio: "poissons_ratio",
-};
+} as const satisfies Readonly<Record<InputQuantity, string>>;
+
+/** What a correlation's input is, by a unit-free name of the API's own; the unit is the input's `unit`. */
+export const inputQuantity = z.enum(Object.values(INPUT_QUANTITY_NAMES)).meta({
+  description:
+    "What the service passes: vp (compressional velocity from the sonic; a source written in slowness Δt gets 1/Vp, so its unit may be a slowness), bulk_density (from the density log, or predicted by rho_from), dynamic_youngs_modulus (from the sonic and density logs), static_youngs_modulus (predicted by the static_e correlation of the same list), poissons_ratio (dynamic, from the sonic logs). The unit is in `unit`.",
+});
 const citation = z
   .object({ authors: z.string(), year: z.int(), title: z.string(), source: z.string(), doi: z.string().optional() })
   .meta({ id: "Citation" });
